@@ -1,0 +1,61 @@
+package blocks
+
+import "candor/figures"
+
+// Result is what one analysis block computed: its facts, its tables, the
+// figure to draw and what a reader needs to know about how it was made.
+type Result struct {
+	ID       string
+	Analysis string // the analysis key: summary, frequency, ...
+	Pos      Pos    // the block's opening fence
+	Source   string // the data source name
+	Facts    Facts  // full names, "ID.NAME"
+	Tables   []Table
+	Figure   *figures.Spec // nil when the block draws nothing (chart: none)
+	Filters  []string      // the where: conditions applied, as written
+	Notes    []string      // notes a reader needs under the table
+	Methods  []string      // keys of the methods used (see Methods)
+	Meta     Meta
+}
+
+// Meta describes the analysis for the checker: what was compared with what.
+type Meta struct {
+	// Outcome is "numeric", "binary" or "categorical" for the analysed column.
+	Outcome string
+	// Columns are the columns analysed, in the order the block names them.
+	Columns []string
+	// By is the grouping column, Groups its levels in display order (slugged
+	// forms are the fact names), Reference the reference group.
+	By        string
+	Groups    []string
+	Reference string
+	// Time is the time column of a trend and Times its points in order.
+	Time  string
+	Times []string
+	// Predictors of a regression.
+	Predictors []string
+	// Levels are the categories of a frequency or the rows/columns of a
+	// crosstab.
+	Levels, ColLevels []string
+	// Ordered is true when the levels have an order (a number, a date or an
+	// `order:` key).
+	Ordered bool
+	// N is the number of cases analysed (after filters and missing values).
+	N int
+}
+
+// Table is a result table, independent of HTML.
+type Table struct {
+	Caption string
+	Head    []string
+	Rows    [][]Cell
+	Notes   []string
+}
+
+// Cell is one table cell. Num cells are right-aligned; Fact names the fact
+// the cell shows, if any.
+type Cell struct {
+	Text string
+	Num  bool
+	Fact string
+}
