@@ -26,7 +26,13 @@ var Kinds = []Kind{Bar, Histogram, Dot, Pie, Stacked, Grouped, Scatter, Line, Bo
 // Spec is everything needed to draw one figure. The analysis that fills it
 // decides the data; Draw decides the look.
 type Spec struct {
-	Kind  Kind
+	Kind Kind
+	// ID prefixes every id inside the SVG (fig-ID-title, fig-ID-desc) so that
+	// two figures in one HTML file never clash: give the block id. Characters
+	// other than letters, digits, '-' and '_' become '-'; an ID that already
+	// starts with "fig-" is not prefixed again. When empty, Draw derives a
+	// stable id from the drawing itself.
+	ID    string
 	Title string // shown above the plot and as the SVG <title>
 	// Desc is the one-sentence text summary with the key numbers, the SVG
 	// <desc>; Draw writes one from the data when it is empty.
@@ -66,7 +72,9 @@ type Series struct {
 	Name   string
 	Values []float64
 	// Low and High, when set (same length as Values), are interval ends drawn
-	// as whiskers (a 95% CI, say).
+	// as whiskers (a 95% CI, say) on dots, bars, grouped bars and line points;
+	// each must contain its value. A line chart may leave a time point out
+	// with a NaN value.
 	Low, High []float64
 }
 
@@ -107,11 +115,16 @@ type Mark struct {
 	Series   string
 	Category string
 	Value    float64 // the data value
-	// Length is the drawn extent along the value axis from the axis' start
-	// (the baseline), in canvas units: a bar's height, a stack segment's
-	// height. Zero for marks without extent (points).
+	// Length is the drawn extent along the value axis from the baseline, in
+	// canvas units: the visible height (or width) of a bar, bin or stack
+	// segment, measured from zero or, on a cut-off axis, from the axis start,
+	// and clipped to the data area; for a pie slice its sweep angle in
+	// degrees. Zero for marks without extent (points, box medians).
 	Length float64
 	X, Y   float64 // canvas position of the mark's value end
+	// Rect is the drawn rectangle of a bar, bin or stack segment (its
+	// visible, clipped extent); zero for points and slices.
+	Rect Rect
 }
 
 // Geometry records what Draw drew: the plot area, the value axis as drawn and
@@ -120,12 +133,20 @@ type Geometry struct {
 	Kind          Kind
 	Width, Height float64 // canvas size
 	Plot          Rect    // the data area
-	// AxisMin and AxisMax are the value axis range as drawn.
+	// AxisMin and AxisMax are the value axis range as drawn. HasAxis is false
+	// for a figure without a value axis (stemleaf); a pie has none either but
+	// reports 0 and the sum of its values, the whole its slices divide.
 	AxisMin, AxisMax float64
-	Marks            []Mark
+	HasAxis          bool
+	// Horizontal is true when the value axis runs across (horizontal bars,
+	// dot plots), false when it runs up.
+	Horizontal bool
+	Marks      []Mark
 	// LieFactor is Tufte's (1983) lie factor of the marks drawn: the size of
-	// the effect shown divided by the size of the effect in the data. HasLie
-	// is false where it does not apply (points, lines without area).
+	// the effect shown divided by the size of the effect in the data, as
+	// Draw's doc comment defines it (+Inf when the smaller mark is not drawn
+	// at all). HasLie is false where it does not apply (dot, scatter, line,
+	// box, stemleaf; fewer than two distinct positive values).
 	LieFactor float64
 	HasLie    bool
 }
