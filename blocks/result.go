@@ -59,3 +59,26 @@ type Cell struct {
 	Num  bool
 	Fact string
 }
+
+// Transpose turns the table's columns into rows: the header's first cell
+// stays in the corner, the first column becomes the header. A table with
+// few rows and many statistics reads better this way.
+func (t Table) Transpose() Table {
+	out := Table{Caption: t.Caption, Notes: t.Notes}
+	corner := ""
+	if len(t.Head) > 0 {
+		corner = t.Head[0]
+	}
+	out.Head = []string{corner}
+	for _, r := range t.Rows {
+		out.Head = append(out.Head, r[0].Text)
+	}
+	for j := 1; j < len(t.Head); j++ {
+		row := []Cell{cellText(t.Head[j])}
+		for _, r := range t.Rows {
+			row = append(row, r[j])
+		}
+		out.Rows = append(out.Rows, row)
+	}
+	return out
+}

@@ -1,0 +1,229 @@
+package blocks
+
+import (
+	"path/filepath"
+	"regexp"
+	"sort"
+	"strings"
+	"time"
+
+	"gopkg.in/yaml.v3"
+)
+
+// SourceSpec is one entry of the front matter's `data:` (FORMAT.md section 1).
+type SourceSpec struct {
+	Name string
+	Pos  Pos
+	// Kind is "csv", "tsv", "xlsx", "sqlite" or "postgres".
+	Kind      string
+	File      string // csv, tsv, xlsx: the path as written; sqlite: the database file
+	FilePos   Pos
+	Sheet     string
+	Delimiter rune
+	Query     string
+	QueryPos  Pos
+	EnvVar    string // postgres: the environment variable holding the DSN
+	Types     map[string]ColType
+	TypesPos  map[string]Pos
+	Missing   []string
+}
+
+// DefaultMissing are the tokens read as missing when a source names none.
+var DefaultMissing = []string{"", "NA", "n/a"}
+
+var sourceKeys = []string{"file", "sheet", "delimiter", "columns", "missing", "sqlite", "postgres", "query"}
+
+// ParseSources reads the front matter's data: mapping.
+func ParseSources(n *yaml.Node, pf PosFunc) ([]*SourceSpec, error) {
+	entries, err := Entries(n, pf, "data", nil)
+	if err != nil {
+		return nil, err
+	}
+	var out []*SourceSpec
+	for _, e := range entries {
+		s, err := parseSource(e, pf)
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, s)
+	}
+	return out, nil
+}
+
+func parseSource(e MapEntry, pf PosFunc) (*SourceSpec, error) {
+	s := &SourceSpec{Name: e.Key, Pos: pf.At(e.KeyN), Missing: DefaultMissing, Types: map[string]ColType{}, TypesPos: map[string]Pos{}}
+	if !ValidID(e.Key) {
+		return nil, Errorf(s.Pos, "data source name %q may hold only letters, digits, - and _", e.Key)
+	}
+	v := e.Value
+	if v.Kind == yaml.ScalarNode {
+		f, err := Scalar(v, pf, "data "+e.Key)
+		if err != nil {
+			return nil, err
+		}
+		s.File, s.FilePos = f, pf.At(v)
+		return s, s.fileKind()
+	}
+	entries, err := Entries(v, pf, "data "+e.Key, sourceKeys)
+	if err != nil {
+		return nil, err
+	}
+	for _, f := range entries {
+		var err error
+		switch f.Key {
+		case "file":
+			s.File, err = Scalar(f.Value, pf, "file")
+			s.FilePos = pf.At(f.Value)
+		case "sheet":
+			s.Sheet, err = Scalar(f.Value, pf, "sheet")
+		case "delimiter":
+			var d string
+			d, err = Scalar(f.Value, pf, "delimiter")
+			if err == nil {
+				switch d {
+				case "\\t", "tab", "\t":
+					s.Delimiter = '\t'
+				default:
+					r := []rune(d)
+					if len(r) != 1 || r[0] == '"' || r[0] == '\n' || r[0] == '\r' {
+						err = Errorf(pf.At(f.Value), "delimiter must be one character, e.g. \";\" or \"tab\"")
+					} else {
+						s.Delimiter = r[0]
+					}
+				}
+			}
+		case "columns":
+			err = s.parseTypes(f.Value, pf)
+		case "missing":
+			s.Missing, _, err = ScalarList(f.Value, pf, "missing")
+			s.Missing = append(s.Missing, "")
+		case "sqlite":
+			s.Kind = "sqlite"
+			s.File, err = Scalar(f.Value, pf, "sqlite")
+			s.FilePos = pf.At(f.Value)
+		case "postgres":
+			s.Kind = "postgres"
+			s.EnvVar, err = Scalar(f.Value, pf, "postgres")
+			s.FilePos = pf.At(f.Value)
+			if err == nil && (strings.Contains(s.EnvVar, "://") || strings.Contains(s.EnvVar, "=")) {
+				err = Errorf(pf.At(f.Value), "postgres takes the name of an environment variable that holds the connection string, never the connection string itself")
+			}
+		case "query":
+			s.Query, err = Scalar(f.Value, pf, "query")
+			s.QueryPos = pf.At(f.Value)
+		}
+		if err != nil {
+			return nil, err
+		}
+	}
+	switch s.Kind {
+	case "sqlite", "postgres":
+		if s.Query == "" {
+			return nil, Errorf(s.Pos, "data %s: a %s source needs a query", s.Name, s.Kind)
+		}
+		return s, nil
+	}
+	if s.Query != "" {
+		return nil, Errorf(s.QueryPos, "data %s: query applies to sqlite and postgres sources only", s.Name)
+	}
+	if s.File == "" {
+		return nil, Errorf(s.Pos, "data %s needs a file (or sqlite:/postgres: with a query)", s.Name)
+	}
+	return s, s.fileKind()
+}
+
+func (s *SourceSpec) fileKind() error {
+	switch strings.ToLower(filepath.Ext(s.File)) {
+	case ".csv":
+		s.Kind = "csv"
+	case ".tsv", ".tab":
+		s.Kind = "tsv"
+	case ".xlsx":
+		s.Kind = "xlsx"
+	case ".txt":
+		s.Kind = "csv"
+	default:
+		return Errorf(s.FilePos, "data %s: cannot tell the format of %q; use a .csv, .tsv or .xlsx file", s.Name, s.File)
+	}
+	if s.Kind == "tsv" && s.Delimiter == 0 {
+		s.Delimiter = '\t'
+	}
+	if s.Delimiter == 0 {
+		s.Delimiter = ','
+	}
+	return nil
+}
+
+func (s *SourceSpec) parseTypes(v *yaml.Node, pf PosFunc) error {
+	entries, err := Entries(v, pf, "columns", nil)
+	if err != nil {
+		return err
+	}
+	for _, e := range entries {
+		t, err := Scalar(e.Value, pf, "columns "+e.Key)
+		if err != nil {
+			return err
+		}
+		ct, ok := parseColType(t)
+		if !ok {
+			return Errorf(pf.At(e.Value), "column type %q is not one of %s%s", t, strings.Join(ColTypes, ", "), Suggest(t, ColTypes))
+		}
+		s.Types[e.Key] = ct
+		s.TypesPos[e.Key] = pf.At(e.KeyN)
+	}
+	return nil
+}
+
+// isMissing reports whether text is one of the source's missing tokens.
+func (s *SourceSpec) isMissing(text string) bool {
+	for _, m := range s.Missing {
+		if text == m {
+			return true
+		}
+	}
+	return false
+}
+
+var periodPattern = regexp.MustCompile(`^\d{4}(-(\d{2}(-\d{2})?|Q[1-4]|H[12]|W\d{2}))?$`)
+var datePattern = regexp.MustCompile(`^\d{4}-\d{2}-\d{2}$`)
+
+// isPeriod reports whether s is an ISO date, a month (2026-03), a quarter
+// (2026-Q3), a half, an ISO week (2026-W07) or a year: text whose lexical
+// order is its time order.
+func isPeriod(s string) bool {
+	if !periodPattern.MatchString(s) {
+		return false
+	}
+	switch len(s) {
+	case 10:
+		_, err := time.Parse("2006-01-02", s)
+		return err == nil
+	case 7:
+		if s[5] >= '0' && s[5] <= '9' {
+			_, err := time.Parse("2006-01", s)
+			return err == nil
+		}
+	case 8: // 2026-W07
+		w := (int(s[6])-'0')*10 + int(s[7]) - '0'
+		return w >= 1 && w <= 53
+	}
+	return true
+}
+
+// isDate reports whether s is a valid ISO date.
+func isDate(s string) bool { return datePattern.MatchString(s) && isPeriod(s) }
+
+// checkHints reports a type hint naming no column, suggesting the nearest.
+func (s *SourceSpec) checkHints(names []string) error {
+	keys := make([]string, 0, len(s.Types))
+	for k := range s.Types {
+		keys = append(keys, k)
+	}
+	sort.Strings(keys)
+	for _, k := range keys {
+		if !contains(names, k) {
+			return Errorf(s.TypesPos[k], "data %s: columns names %q, which %s does not have%s", s.Name, k, s.File, suggestOrList(k, names))
+		}
+	}
+	return nil
+}
