@@ -1,6 +1,9 @@
 package blocks
 
 import (
+	"errors"
+	"fmt"
+	"os"
 	"path/filepath"
 	"regexp"
 	"sort"
@@ -226,4 +229,88 @@ func (s *SourceSpec) checkHints(names []string) error {
 		}
 	}
 	return nil
+}
+
+// Env is what loading needs to know about the report's surroundings.
+type Env struct {
+	// Dir is the report's folder; file sources are relative to it.
+	Dir string
+	// Root is the folder tree file sources must resolve inside (default Dir).
+	Root string
+	// Params are the report's parameters after --set, bound into queries.
+	Params map[string]string
+	// Getenv reads environment variables (os.Getenv when nil).
+	Getenv func(string) string
+}
+
+// Load reads a source into a table.
+func Load(s *SourceSpec, env Env) (*Dataset, error) {
+	switch s.Kind {
+	case "csv", "tsv":
+		path, err := resolveFile(s, env)
+		if err != nil {
+			return nil, err
+		}
+		b, err := os.ReadFile(path)
+		if err != nil {
+			return nil, Errorf(s.FilePos, "data %s: cannot read %s: %v", s.Name, s.File, errors.Unwrap(err))
+		}
+		return readDelimited(s, path, b)
+	}
+	return nil, Errorf(s.Pos, "data %s: %s sources are not supported yet; use a .csv or .tsv file", s.Name, s.Kind)
+}
+
+// resolveFile returns the source file's path, which must lie inside the
+// report's folder tree (or --data-root), symbolic links resolved.
+func resolveFile(s *SourceSpec, env Env) (string, error) {
+	path := s.File
+	if !filepath.IsAbs(path) {
+		path = filepath.Join(env.Dir, path)
+	}
+	if _, err := os.Stat(path); err != nil {
+		msg := fmt.Sprintf("data %s: file %s not found", s.Name, s.File)
+		if os.IsPermission(err) {
+			msg = fmt.Sprintf("data %s: file %s cannot be read (permission denied)", s.Name, s.File)
+		} else if near := nearbyFiles(path); near != "" {
+			msg += near
+		} else {
+			msg += fmt.Sprintf("; the path is relative to the report's folder (%s)", displayDir(env.Dir))
+		}
+		return "", Errorf(s.FilePos, "%s", msg)
+	}
+	root := env.Root
+	if root == "" {
+		root = env.Dir
+	}
+	realRoot, err1 := filepath.EvalSymlinks(root)
+	realPath, err2 := filepath.EvalSymlinks(path)
+	if err1 != nil || err2 != nil {
+		return "", Errorf(s.FilePos, "data %s: cannot resolve %s", s.Name, s.File)
+	}
+	realRoot, _ = filepath.Abs(realRoot)
+	realPath, _ = filepath.Abs(realPath)
+	if rel, err := filepath.Rel(realRoot, realPath); err != nil || rel == ".." || strings.HasPrefix(rel, ".."+string(filepath.Separator)) {
+		return "", Errorf(s.FilePos, "data %s: %s lies outside the report's folder (%s); move it inside, or allow a wider folder with --data-root DIR", s.Name, s.File, displayDir(root))
+	}
+	return path, nil
+}
+
+func displayDir(d string) string {
+	if d == "" {
+		return "."
+	}
+	return d
+}
+
+// nearbyFiles suggests files beside a missing path with a similar name.
+func nearbyFiles(path string) string {
+	entries, err := os.ReadDir(filepath.Dir(path))
+	if err != nil {
+		return ""
+	}
+	var names []string
+	for _, e := range entries {
+		names = append(names, e.Name())
+	}
+	return Suggest(filepath.Base(path), names)
 }
