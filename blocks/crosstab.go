@@ -14,7 +14,7 @@ func init() { analyses["crosstab"] = runCrosstab }
 // independence and Cramér's V.
 func runCrosstab(a *run) error {
 	s := a.spec
-	if err := a.chartOK(figures.Stacked, figures.Grouped, figures.Bar); err != nil {
+	if err := a.chartOK(figures.Stacked, figures.Grouped); err != nil {
 		return err
 	}
 	if s.Target[0] == s.Target[1] {

@@ -77,6 +77,7 @@ func runFrequency(a *run) error {
 	}
 	a.res.Meta.N = n
 	a.res.Meta.Ordered = ordered
+	a.res.Meta.Binned = binned
 	a.res.Meta.Outcome = "categorical"
 	if c.Type == TypeNumber {
 		a.res.Meta.Outcome = "numeric"

@@ -40,6 +40,10 @@ type Meta struct {
 	// Ordered is true when the levels have an order (a number, a date or an
 	// `order:` key).
 	Ordered bool
+	// Binned is true when a frequency cut a continuous number column into
+	// bins; a number column with few whole values is tabled value by value
+	// and is not binned.
+	Binned bool
 	// N is the number of cases analysed (after filters and missing values).
 	N int
 }

@@ -41,6 +41,8 @@ func runStemLeaf(a *run) error {
 	a.res.Meta.Outcome = "numeric"
 	a.set("n", float64(len(xs)), Count, "")
 	a.set("missing", float64(miss), Count, "")
+	a.set("min", xs[0], Number, "")
+	a.set("max", xs[len(xs)-1], Number, "")
 	a.set("unit", d.unit, Number, "")
 	a.set("lines", float64(len(d.lines)), Count, "")
 	fs := &figures.Spec{Kind: figures.StemLeaf, Title: "Stem-and-leaf display of " + c.Name, Lines: d.lines, Legend: d.legend}
