@@ -55,6 +55,10 @@ type Block struct {
 	Result  *blocks.Result
 	Section int               // the section the block stands in
 	Figure  *figures.Geometry // nil when the block drew no figure
+	// Allow holds the acknowledgments on the line before the block's
+	// opening fence; they apply to the findings about its figure (as do
+	// those before its caption).
+	Allow []Allow
 }
 
 // Config is the report's check: settings (FORMAT.md section 1 and 5).
