@@ -10,7 +10,7 @@ import os
 import random
 
 HERE = os.path.dirname(os.path.abspath(__file__))
-rng = random.Random(20260914)
+rng = random.Random(20260918)
 SCHOOLS = ["Ashgrove", "Brookside", "Cedar Hill"]
 WAVES = ["2026-01", "2026-03", "2026-06"]  # baseline, midterm, final test
 
@@ -19,9 +19,12 @@ def main():
     pupils, scores = [], []
     pid = 0
     for school in SCHOOLS:
-        for _ in range(70):
+        # Assignment by lot within each school: 35 places of each kind,
+        # shuffled.
+        arms = ["tutoring"] * 35 + ["usual"] * 35
+        rng.shuffle(arms)
+        for arm in arms:
             pid += 1
-            arm = "tutoring" if rng.random() < 0.5 else "usual"
             ability = rng.gauss(52, 11)
             hours = round(max(0.0, rng.gauss(18, 6)), 1) if arm == "tutoring" else 0.0
             tests = []
