@@ -376,7 +376,7 @@ func (n *nodeRenderer) text(w util.BufWriter, src []byte, node ast.Node, enterin
 	return ast.WalkContinue, nil
 }
 
-// kindNote is a review note inserted after the block it concerns.
+// kindNote is a review note inserted before the block it concerns.
 var kindNote = ast.NewNodeKind("CandorFindingNote")
 
 type noteNode struct {
@@ -407,8 +407,9 @@ func (n *nodeRenderer) note(w util.BufWriter, src []byte, node ast.Node, enterin
 	return ast.WalkSkipChildren, nil
 }
 
-// insertNotes puts a note after each top-level node (paragraph, list,
-// table, heading, block) holding findings.
+// insertNotes puts a note before each top-level node (paragraph, list,
+// table, heading, block) holding findings: on a wide screen the note floats
+// into the margin beside it, on a narrow one it stands above it.
 func (r *Report) insertNotes(fs []check.Finding) {
 	if len(fs) == 0 {
 		return
@@ -448,7 +449,7 @@ func (r *Report) insertNotes(fs []check.Finding) {
 	for _, t := range keys {
 		list := notes[t]
 		sort.SliceStable(list, func(i, j int) bool { return list[i].Offset < list[j].Offset })
-		doc.InsertAfter(doc, t, &noteNode{findings: list})
+		doc.InsertBefore(doc, t, &noteNode{findings: list})
 	}
 }
 
