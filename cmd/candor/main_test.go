@@ -159,3 +159,21 @@ func TestInit(t *testing.T) {
 		t.Error("init over an existing report must refuse")
 	}
 }
+
+// TestFiguresDir: --figures writes each figure as a standalone SVG file.
+func TestFiguresDir(t *testing.T) {
+	p := setup(t, "")
+	dir := filepath.Join(t.TempDir(), "figs")
+	if code, _, stderr := runCmd("build", p, "--figures", dir); code != 0 {
+		t.Fatalf("exit %d: %s", code, stderr)
+	}
+	b, err := os.ReadFile(filepath.Join(dir, "report-v.svg"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{`<?xml version="1.0"`, `<svg`, `xmlns="http://www.w3.org/2000/svg"`, `<title`, `<desc`} {
+		if !bytes.Contains(b, []byte(want)) {
+			t.Errorf("the figure file lacks %s", want)
+		}
+	}
+}
