@@ -61,7 +61,8 @@ func Filter(t *Dataset, conds []Cond, params map[string]string) (*Dataset, error
 				comparando = fs[0]
 			}
 		}
-		res := t.Frame.Col(c.Column).Compare(comparators[c.Op], comparando)
+		ser, _ := t.Series(c.Column)
+		res := ser.Compare(comparators[c.Op], comparando)
 		if res.Err != nil {
 			return nil, Errorf(c.Pos, "where: %v", res.Err)
 		}

@@ -34,7 +34,7 @@ func runFrequency(a *run) error {
 	miss := 0
 	ordered := false
 	if c.Type == TypeNumber {
-		v, m := present(c, nil)
+		v, m := presentAll(c)
 		miss = m
 		if !s.Bins.set() && isDiscrete(v) {
 			levels = discreteLevels(v)

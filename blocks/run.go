@@ -23,6 +23,20 @@ func Run(s *Spec, t *Dataset, params map[string]string) (res *Result, err error)
 	if !ok {
 		return nil, Errorf(s.Pos, "analysis %s is not available yet", s.Analysis)
 	}
+	// A SQL source runs what it can in the database (pushdown.go); any
+	// other block reads the query's rows, once for all blocks.
+	if t.sql != nil && len(t.Cols) == 0 {
+		a, done, err := pushDown(s, t, params)
+		if err != nil {
+			return nil, err
+		}
+		if done {
+			return finish(s, a), nil
+		}
+		if t, err = t.sql.rows(); err != nil {
+			return nil, err
+		}
+	}
 	for i, c := range s.Target {
 		if t.Col(c) == nil {
 			return nil, unknownColumn(s.TargetPos[i], c, t)
@@ -61,6 +75,12 @@ func Run(s *Spec, t *Dataset, params map[string]string) (res *Result, err error)
 	if err := f(a); err != nil {
 		return nil, err
 	}
+	return finish(s, a), nil
+}
+
+// finish applies the keys every block shares (chart: none, title:,
+// axis:, table: false) to a computed result.
+func finish(s *Spec, a *run) *Result {
 	if s.Chart == "none" {
 		a.res.Figure = nil
 	}
@@ -71,11 +91,28 @@ func Run(s *Spec, t *Dataset, params map[string]string) (res *Result, err error)
 			fs.Title = s.Title
 		}
 		fs.AxisMin, fs.AxisMax = s.AxisMin, s.AxisMax
+		closeWhiskers(fs)
 	}
 	if !s.Table {
 		a.res.Tables = nil
 	}
-	return a.res, nil
+	return a.res
+}
+
+// closeWhiskers draws no whisker where an interval is undefined (a group
+// of one): its ends become the value itself.
+func closeWhiskers(fs *figures.Spec) {
+	for k := range fs.Series {
+		ser := &fs.Series[k]
+		for i, v := range ser.Values {
+			if i < len(ser.Low) && math.IsNaN(ser.Low[i]) != math.IsNaN(v) {
+				ser.Low[i] = v
+			}
+			if i < len(ser.High) && math.IsNaN(ser.High[i]) != math.IsNaN(v) {
+				ser.High[i] = v
+			}
+		}
+	}
 }
 
 // analyses maps analysis keys to their implementations.
@@ -123,23 +160,27 @@ func (a *run) numeric(name string, pos Pos, need string) (*Column, error) {
 }
 
 // present returns the non-missing values of a number column at rows idx
-// (all rows when idx is nil) and how many were missing.
+// (none when idx is empty) and how many were missing.
 func present(c *Column, idx []int) (stats.Values, int) {
-	v := stats.Values{Offset: c.Num.Offset}
+	v := stats.Values{Offset: c.Num.Offset, D: make([]float64, 0, len(idx))}
 	miss := 0
-	if idx == nil {
-		v.D = make([]float64, 0, len(c.Num.D))
-		for _, d := range c.Num.D {
-			if math.IsNaN(d) {
-				miss++
-			} else {
-				v.D = append(v.D, d)
-			}
-		}
-		return v, miss
-	}
 	for _, i := range idx {
 		if d := c.Num.D[i]; math.IsNaN(d) {
+			miss++
+		} else {
+			v.D = append(v.D, d)
+		}
+	}
+	return v, miss
+}
+
+// presentAll returns the non-missing values of a whole number column and
+// how many were missing.
+func presentAll(c *Column) (stats.Values, int) {
+	v := stats.Values{Offset: c.Num.Offset, D: make([]float64, 0, len(c.Num.D))}
+	miss := 0
+	for _, d := range c.Num.D {
+		if math.IsNaN(d) {
 			miss++
 		} else {
 			v.D = append(v.D, d)

@@ -22,13 +22,17 @@ type SourceSpec struct {
 	File      string // csv, tsv, xlsx: the path as written; sqlite: the database file
 	FilePos   Pos
 	Sheet     string
+	SheetPos  Pos
 	Delimiter rune
 	Query     string
 	QueryPos  Pos
-	EnvVar    string // postgres: the environment variable holding the DSN
-	Types     map[string]ColType
-	TypesPos  map[string]Pos
-	Missing   []string
+	// QueryPlain is true when the query is a plain YAML scalar, so that a
+	// byte offset in it maps to a column of the report.
+	QueryPlain bool
+	EnvVar     string // postgres: the environment variable holding the DSN
+	Types      map[string]ColType
+	TypesPos   map[string]Pos
+	Missing    []string
 }
 
 // DefaultMissing are the tokens read as missing when a source names none.
@@ -79,6 +83,7 @@ func parseSource(e MapEntry, pf PosFunc) (*SourceSpec, error) {
 			s.FilePos = pf.At(f.Value)
 		case "sheet":
 			s.Sheet, err = Scalar(f.Value, pf, "sheet")
+			s.SheetPos = pf.At(f.Value)
 		case "delimiter":
 			var d string
 			d, err = Scalar(f.Value, pf, "delimiter")
@@ -114,6 +119,7 @@ func parseSource(e MapEntry, pf PosFunc) (*SourceSpec, error) {
 		case "query":
 			s.Query, err = Scalar(f.Value, pf, "query")
 			s.QueryPos = pf.At(f.Value)
+			s.QueryPlain = f.Value.Style == 0
 		}
 		if err != nil {
 			return nil, err
@@ -122,7 +128,16 @@ func parseSource(e MapEntry, pf PosFunc) (*SourceSpec, error) {
 	switch s.Kind {
 	case "sqlite", "postgres":
 		if s.Query == "" {
-			return nil, Errorf(s.Pos, "data %s: a %s source needs a query", s.Name, s.Kind)
+			return nil, Errorf(s.Pos, "data %s: a %s source needs a query, e.g. query: SELECT store, total FROM orders", s.Name, s.Kind)
+		}
+		if s.Sheet != "" {
+			return nil, Errorf(s.SheetPos, "data %s: sheet applies to .xlsx files only", s.Name)
+		}
+		if s.Kind == "sqlite" && s.File == "" {
+			return nil, Errorf(s.FilePos, "data %s: sqlite takes the path of the database file, relative to the report", s.Name)
+		}
+		if s.Kind == "postgres" && s.EnvVar == "" {
+			return nil, Errorf(s.FilePos, "data %s: postgres takes the name of an environment variable holding the connection string, e.g. postgres: LEDGER_URL", s.Name)
 		}
 		return s, nil
 	}
@@ -132,7 +147,13 @@ func parseSource(e MapEntry, pf PosFunc) (*SourceSpec, error) {
 	if s.File == "" {
 		return nil, Errorf(s.Pos, "data %s needs a file (or sqlite:/postgres: with a query)", s.Name)
 	}
-	return s, s.fileKind()
+	if err := s.fileKind(); err != nil {
+		return nil, err
+	}
+	if s.Sheet != "" && s.Kind != "xlsx" {
+		return nil, Errorf(s.SheetPos, "data %s: sheet applies to .xlsx files only, and %s is a %s file", s.Name, s.File, s.Kind)
+	}
+	return s, nil
 }
 
 func (s *SourceSpec) fileKind() error {
@@ -223,9 +244,13 @@ func (s *SourceSpec) checkHints(names []string) error {
 		keys = append(keys, k)
 	}
 	sort.Strings(keys)
+	what := s.File + " does not have"
+	if s.Kind == "sqlite" || s.Kind == "postgres" {
+		what = "the query does not return"
+	}
 	for _, k := range keys {
 		if !contains(names, k) {
-			return Errorf(s.TypesPos[k], "data %s: columns names %q, which %s does not have%s", s.Name, k, s.File, suggestOrList(k, names))
+			return Errorf(s.TypesPos[k], "data %s: columns names %q, which %s%s", s.Name, k, what, suggestOrList(k, names))
 		}
 	}
 	return nil
@@ -256,8 +281,12 @@ func Load(s *SourceSpec, env Env) (*Dataset, error) {
 			return nil, Errorf(s.FilePos, "data %s: cannot read %s: %v", s.Name, s.File, errors.Unwrap(err))
 		}
 		return readDelimited(s, path, b)
+	case "xlsx":
+		return loadXLSX(s, env)
+	case "sqlite", "postgres":
+		return loadSQL(s, env)
 	}
-	return nil, Errorf(s.Pos, "data %s: %s sources are not supported yet; use a .csv or .tsv file", s.Name, s.Kind)
+	return nil, Errorf(s.Pos, "data %s: %s sources are not supported; use a .csv, .tsv or .xlsx file, or sqlite: or postgres: with a query", s.Name, s.Kind)
 }
 
 // resolveFile returns the source file's path, which must lie inside the

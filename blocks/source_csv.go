@@ -15,7 +15,19 @@ import (
 )
 
 // readDelimited parses CSV or TSV bytes: the first row names the columns.
+// It takes b over: b is never written again. Files the parallel reader
+// cannot take (and every file with an error to report) go to the
+// sequential reader, which gives the same columns.
 func readDelimited(s *SourceSpec, path string, b []byte) (*Dataset, error) {
+	if d := readParallel(s, b); d != nil {
+		return d, nil
+	}
+	return readSequential(s, path, b)
+}
+
+// readSequential reads the file with encoding/csv, one record after the
+// other; its errors name the file, line and column of the first problem.
+func readSequential(s *SourceSpec, path string, b []byte) (*Dataset, error) {
 	sum := sha256.Sum256(b)
 	if !utf8.Valid(b) {
 		return nil, Errorf(s.FilePos, "data %s: %s is not UTF-8 text; save it as UTF-8", s.Name, s.File)
@@ -32,20 +44,8 @@ func readDelimited(s *SourceSpec, path string, b []byte) (*Dataset, error) {
 	if err != nil {
 		return nil, csvError(s, path, err)
 	}
-	names := make([]string, len(header))
-	seen := map[string]int{}
-	for i, h := range header {
-		h = strings.TrimSpace(h)
-		if h == "" {
-			return nil, Errorf(Pos{File: path, Line: 1, Col: 1}, "data %s: column %d of the header has no name; name it", s.Name, i+1)
-		}
-		if j, dup := seen[h]; dup {
-			return nil, Errorf(Pos{File: path, Line: 1, Col: 1}, "data %s: columns %d and %d are both named %q; rename one", s.Name, j+1, i+1, h)
-		}
-		seen[h] = i
-		names[i] = h
-	}
-	if err := s.checkHints(names); err != nil {
+	names, err := headerNames(s, path, header)
+	if err != nil {
 		return nil, err
 	}
 	raw := make([][]string, len(names))

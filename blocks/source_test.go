@@ -55,7 +55,7 @@ func TestLoadInfersTypes(t *testing.T) {
 	if len(d.SHA256) != 64 {
 		t.Errorf("SHA-256 %q", d.SHA256)
 	}
-	if r, c := d.Frame.Dims(); r != 3 || c != 6 {
+	if r, c := d.Frame().Dims(); r != 3 || c != 6 {
 		t.Errorf("gota frame is %dx%d", r, c)
 	}
 }

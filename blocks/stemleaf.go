@@ -26,7 +26,7 @@ func runStemLeaf(a *run) error {
 	if err != nil {
 		return err
 	}
-	v, miss := present(c, nil)
+	v, miss := presentAll(c)
 	if v.Len() == 0 {
 		return Errorf(s.TargetPos[0], "stemleaf: column %q has no values here", c.Name)
 	}

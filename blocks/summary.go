@@ -121,7 +121,7 @@ func runSummary(a *run) error {
 		}
 	}
 	for _, c := range cols {
-		v, miss := present(c, nil)
+		v, miss := presentAll(c)
 		p, label := "", c.Name
 		if multi {
 			p = Slug(c.Name) + "."

@@ -4,8 +4,8 @@ import (
 	"math"
 	"sort"
 	"strconv"
+	"sync"
 
-	"github.com/go-gota/gota/dataframe"
 	"github.com/go-gota/gota/series"
 
 	"candor/blocks/stats"
@@ -105,22 +105,30 @@ type Dataset struct {
 	Source string // the source name in the front matter
 	File   string // the file as the report names it (or the SQL source's description)
 	SHA256 string // of the file's bytes, or of the query result
-	Frame  dataframe.DataFrame
 	Cols   []*Column
 	byName map[string]int
+	// frame is the gota frame, built when first asked for (Frame, Series;
+	// frame.go).
+	frame     *lazyFrame
+	frameInit sync.Once
+
+	// HashOf says what SHA256 is of: "" for a file's bytes; "query" for a
+	// SQL source as the report lists it: its query text, bound parameters,
+	// result columns and row count, not its values (source_sql.go); "rows"
+	// for a SQL source's rows once a block read them.
+	HashOf string
+	// sql is the handle of a SQL source, read lazily (source_sql.go,
+	// pushdown.go); nil for every other data set. Cols stay empty until a
+	// block needs rows: Run then uses the data set sql.rows() returns.
+	sql *sqlSource
 }
 
-// NewDataset builds a data set from typed columns of equal length, with its gota
-// frame.
+// NewDataset builds a data set from typed columns of equal length; its gota
+// frame is built when first asked for (Frame, Series).
 func NewDataset(source, file, sum string, cols []*Column) *Dataset {
 	t := &Dataset{Source: source, File: file, SHA256: sum, Cols: cols, byName: map[string]int{}}
-	ss := make([]series.Series, len(cols))
 	for i, c := range cols {
 		t.byName[c.Name] = i
-		ss[i] = toSeries(c)
-	}
-	if len(ss) > 0 {
-		t.Frame = dataframe.New(ss...)
 	}
 	return t
 }
@@ -145,6 +153,9 @@ func toSeries(c *Column) series.Series {
 
 // Rows is the number of rows.
 func (t *Dataset) Rows() int {
+	if t.sql != nil && len(t.Cols) == 0 {
+		return t.sql.count
+	}
 	if len(t.Cols) == 0 {
 		return 0
 	}
@@ -153,7 +164,7 @@ func (t *Dataset) Rows() int {
 
 // Col returns the named column or nil.
 func (t *Dataset) Col(name string) *Column {
-	if i, ok := t.byName[name]; ok {
+	if i, ok := t.byName[name]; ok && i < len(t.Cols) {
 		return t.Cols[i]
 	}
 	return nil
@@ -161,6 +172,9 @@ func (t *Dataset) Col(name string) *Column {
 
 // Names returns the column names in file order.
 func (t *Dataset) Names() []string {
+	if t.sql != nil && len(t.Cols) == 0 {
+		return t.sql.names()
+	}
 	out := make([]string, len(t.Cols))
 	for i, c := range t.Cols {
 		out[i] = c.Name
@@ -183,11 +197,7 @@ func (t *Dataset) Subset(idx []int) *Dataset {
 		}
 		cols[i] = nc
 	}
-	nt := &Dataset{Source: t.Source, File: t.File, SHA256: t.SHA256, Cols: cols, byName: t.byName}
-	if len(t.Cols) > 0 {
-		nt.Frame = t.Frame.Subset(idx)
-	}
-	return nt
+	return &Dataset{Source: t.Source, File: t.File, SHA256: t.SHA256, Cols: cols, byName: t.byName}
 }
 
 // Levels returns the distinct non-missing values of a text column in order
