@@ -66,7 +66,7 @@ type blockView struct {
 }
 
 type sourceView struct {
-	Name, File, Rows, SHA256 string
+	Name, File, Rows, SHA256, HashNote string
 }
 
 type methodView struct {
@@ -132,7 +132,14 @@ func (r *Report) writeHTML(review bool) ([]byte, error) {
 		if t == nil {
 			continue
 		}
-		pv.Sources = append(pv.Sources, sourceView{s.Name, t.File, blocks.Thousands(strconv.Itoa(t.Rows())), t.SHA256})
+		sv := sourceView{Name: s.Name, File: t.File, Rows: blocks.Thousands(strconv.Itoa(t.Rows())), SHA256: t.SHA256}
+		switch t.HashOf {
+		case "query":
+			sv.HashNote = "of the query text, its parameters, the result's columns and row count"
+		case "rows":
+			sv.HashNote = "of the query's result rows"
+		}
+		pv.Sources = append(pv.Sources, sv)
 	}
 	for _, f := range r.Findings {
 		if f.Allowed {
