@@ -128,16 +128,41 @@ func orList(name string, names []string) string {
 	return "; the sources are " + strings.Join(names, ", ")
 }
 
-// run computes every block, in parallel; results keep document order.
+// run computes every block, in parallel; results keep document order. A
+// block whose spec, data and parameters the cache has seen is not run
+// again (cache.go). With a cache, a block's figure is drawn as soon as its
+// result is ready (draw then finds it there), and the blocks that draw
+// scatter plots start first, so that a slow figure overlaps the other
+// blocks instead of following them.
 func (r *Report) run() error {
 	d := r.Doc
 	params := d.ParamMap()
+	c := activeCache()
 	r.Results = make([]*blocks.Result, len(d.Blocks))
 	errs := make([]error, len(d.Blocks))
-	parallel(len(d.Blocks), func(i int) {
+	order := longestFirst(d.Blocks)
+	parallel(len(d.Blocks), func(j int) {
+		i := order[j]
 		s := d.Blocks[i]
+		key := ""
+		if c != nil {
+			key = r.blockKey(i)
+			if res := c.result(key, s.Pos); res != nil {
+				r.Results[i] = res
+				return
+			}
+		}
 		name, _ := r.sourceOf(s)
 		r.Results[i], errs[i] = blocks.Run(s, r.Tables[name], params)
+		if errs[i] != nil || c == nil || key == "" {
+			return
+		}
+		c.putResult(key, r.Results[i])
+		if fs := r.Results[i].Figure; fs == nil {
+			c.putFigure(key, nil)
+		} else if f, err := figures.Draw(*fs); err == nil {
+			c.putFigure(key, &f)
+		}
 	})
 	for i, err := range errs {
 		if err != nil {
@@ -150,12 +175,23 @@ func (r *Report) run() error {
 
 // draw draws every figure, in parallel, and publishes what was drawn as
 // facts: ID.figure.axis_min, ID.figure.axis_max, ID.figure.lie_factor.
+// A figure the cache holds is not drawn again.
 func (r *Report) draw() error {
+	c := activeCache()
 	figs := make([]*figures.Figure, len(r.Results))
 	errs := make([]error, len(r.Results))
 	parallel(len(r.Results), func(i int) {
 		res := r.Results[i]
+		key := ""
+		if c != nil {
+			key = r.blockKey(i)
+			if f, ok := c.figure(key); ok {
+				figs[i] = f
+				return
+			}
+		}
 		if res.Figure == nil {
+			c.putFigure(key, nil)
 			return
 		}
 		f, err := figures.Draw(*res.Figure)
@@ -164,7 +200,9 @@ func (r *Report) draw() error {
 			return
 		}
 		figs[i] = &f
+		c.putFigure(key, &f)
 	})
+	c.prune()
 	for i, res := range r.Results {
 		if errs[i] != nil {
 			return errs[i]
