@@ -197,6 +197,12 @@ func buildScatter(s Spec) (*drawing, error) {
 	grid.Vertical, grid.Horizontal = gridStyle, gridStyle
 	p.Add(grid)
 
+	if len(xy) > thinFrom {
+		// Merge points that would share a cell a quarter of a point wide
+		// even if the data area took the whole canvas: cheap, and it keeps
+		// the layout (which measures every glyph) from walking all of them.
+		xy = thinData(xy, xr.lo, xr.hi, vmin, vmax)
+	}
 	sc, err := plotter.NewScatter(xy)
 	if err != nil {
 		return nil, fmt.Errorf("figures: points: %w", err)
@@ -215,8 +221,16 @@ func buildScatter(s Spec) (*drawing, error) {
 	p.Y.Min, p.Y.Max = vmin, vmax
 
 	d := &drawing{plot: p}
-	if drawFit {
-		d.layout = func(dataC draw.Canvas) {
+	drawn := s.Points
+	d.layout = func(dataC draw.Canvas) {
+		if len(s.Points) > thinFrom {
+			drawn = thinPoints(pointsOf(sc.XYs), dataC, p)
+			sc.XYs = make(plotter.XYs, len(drawn))
+			for i, pt := range drawn {
+				sc.XYs[i] = plotter.XY{X: pt.X, Y: pt.Y}
+			}
+		}
+		if drawFit {
 			if l, ok := fitLabel(s, dataC, p, xmin, xmax, fitInk); ok {
 				p.Add(valueLabels{l})
 			}
@@ -224,8 +238,8 @@ func buildScatter(s Spec) (*drawing, error) {
 	}
 	d.marks = func(c draw.Canvas, p *plot.Plot) []Mark {
 		trX, trY := p.Transforms(&c)
-		marks := make([]Mark, len(s.Points))
-		for i, pt := range s.Points {
+		marks := make([]Mark, len(drawn))
+		for i, pt := range drawn {
 			marks[i] = Mark{Value: pt.Y, X: float64(trX(pt.X)), Y: float64(trY(pt.Y))}
 		}
 		return marks
@@ -241,6 +255,62 @@ func buildScatter(s Spec) (*drawing, error) {
 		yv, xv, len(s.Points), xv, formatValue(xmin, false), formatValue(xmax, false),
 		yv, formatValue(ylo0(s), s.Percent), formatValue(yhi0(s), s.Percent), fit)
 	return d, nil
+}
+
+func pointsOf(xy plotter.XYs) []Point {
+	out := make([]Point, len(xy))
+	for i, p := range xy {
+		out[i] = Point{X: p.X, Y: p.Y}
+	}
+	return out
+}
+
+// thinFrom is the number of points above which a scatter plot draws each
+// half-point cell of the canvas once: points that close are drawn over each
+// other anyway, and a million circles would make an SVG of a hundred
+// megabytes that shows nothing more.
+const thinFrom = 5000
+
+// thinData keeps the first point (in the given order) of every cell of a
+// grid over the axes' ranges four times finer than the canvas in points:
+// cells smaller than any drawn data area makes them, so nothing visible is
+// lost.
+func thinData(xy plotter.XYs, xlo, xhi, ylo, yhi float64) plotter.XYs {
+	nx, ny := 4*CanvasWidth, 4*CanvasHeight
+	sx, sy := nx/(xhi-xlo), ny/(yhi-ylo)
+	if !(sx > 0) || !(sy > 0) || math.IsInf(sx, 0) || math.IsInf(sy, 0) {
+		return xy
+	}
+	type cell struct{ x, y int32 }
+	seen := make(map[cell]bool, 1<<15)
+	out := make(plotter.XYs, 0, 1<<15)
+	for _, p := range xy {
+		k := cell{int32(math.Floor((p.X - xlo) * sx)), int32(math.Floor((p.Y - ylo) * sy))}
+		if seen[k] {
+			continue
+		}
+		seen[k] = true
+		out = append(out, p)
+	}
+	return out
+}
+
+// thinPoints keeps the first point (in the given order) of every cell half
+// a point wide on the data canvas, which makes the drawing deterministic.
+func thinPoints(pts []Point, c draw.Canvas, p *plot.Plot) []Point {
+	trX, trY := p.Transforms(&c)
+	type cell struct{ x, y int32 }
+	seen := make(map[cell]bool, 1<<14)
+	out := make([]Point, 0, 1<<14)
+	for _, pt := range pts {
+		k := cell{int32(math.Floor(float64(trX(pt.X)) * 2)), int32(math.Floor(float64(trY(pt.Y)) * 2))}
+		if seen[k] {
+			continue
+		}
+		seen[k] = true
+		out = append(out, pt)
+	}
+	return out
 }
 
 // fitLabel places the short label of the fitted line beside one of its
