@@ -39,7 +39,7 @@ func runRegression(a *run) error {
 		}
 	}
 	// Complete cases: the outcome and every predictor present.
-	var idx []int
+	idx := make([]int, 0, y.Len())
 	for i := 0; i < y.Len(); i++ {
 		ok := !y.Missing(i)
 		for _, p := range s.Predictors {
@@ -213,6 +213,7 @@ func runRegression(a *run) error {
 	if len(terms) == 1 && terms[0].level == "" {
 		fs.Title = fmt.Sprintf("%s against %s, with the fitted line", s.Target[0], s.Predictors[0])
 		fs.XLabel, fs.YLabel = s.Predictors[0], s.Target[0]
+		fs.Points = make([]figures.Point, 0, yv.Len())
 		for i := 0; i < yv.Len(); i++ {
 			fs.Points = append(fs.Points, figures.Point{X: terms[0].values.At(i), Y: yv.At(i)})
 		}
@@ -226,6 +227,7 @@ func runRegression(a *run) error {
 	}
 	fs.Title = fmt.Sprintf("Observed against fitted %s", s.Target[0])
 	fs.XLabel, fs.YLabel = "Fitted "+s.Target[0], s.Target[0]
+	fs.Points = make([]figures.Point, 0, yv.Len())
 	for i := 0; i < yv.Len(); i++ {
 		fs.Points = append(fs.Points, figures.Point{X: fit.Fitted[i], Y: yv.At(i)})
 	}

@@ -35,11 +35,15 @@ func runTrend(a *run) error {
 	if missT > 0 {
 		a.note("%d rows with no value for %s are left out.", missT, s.Time)
 	}
-	timeOf := map[int]int{}
+	// timeOf[i] is the time point of row i, -1 where it has none.
+	timeOf := make([]int32, a.t.Rows())
+	for i := range timeOf {
+		timeOf[i] = -1
+	}
 	for k, t := range times {
 		a.res.Meta.Times = append(a.res.Meta.Times, t.Label)
 		for _, i := range t.Rows {
-			timeOf[i] = k
+			timeOf[i] = int32(k)
 		}
 	}
 	a.res.Meta.Time = s.Time
@@ -100,8 +104,11 @@ func runTrend(a *run) error {
 	changes := make([]float64, len(gs))
 	for gi, g := range gs {
 		byTime := make([][]int, len(times))
+		for k, t := range times {
+			byTime[k] = make([]int, 0, min(len(t.Rows), len(g.Rows)))
+		}
 		for _, i := range g.Rows {
-			if k, ok := timeOf[i]; ok {
+			if k := timeOf[i]; k >= 0 {
 				byTime[k] = append(byTime[k], i)
 			}
 		}
