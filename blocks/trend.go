@@ -2,6 +2,7 @@ package blocks
 
 import (
 	"fmt"
+	"math"
 
 	"candor/blocks/stats"
 	"candor/figures"
@@ -29,8 +30,13 @@ func runTrend(a *run) error {
 	if err != nil {
 		return err
 	}
-	if len(times) < 2 {
-		return Errorf(s.TimePos, "trend needs at least two time points in %s, and these rows have %d", s.Time, len(times))
+	if len(times) == 0 {
+		return Errorf(s.TimePos, "trend: no row has a value for %s", s.Time)
+	}
+	if len(times) == 1 {
+		// Drawn as asked, but the checker will say that one time point of a
+		// trend hides the others (partial-series).
+		a.note("Only one time point (%s = %s) is left in these rows, so the trend shows no change.", s.Time, times[0].Label)
 	}
 	if missT > 0 {
 		a.note("%d rows with no value for %s are left out.", missT, s.Time)
@@ -153,12 +159,19 @@ func runTrend(a *run) error {
 			ckind = Points
 		}
 		changes[gi] = vals[len(vals)-1] - vals[0]
+		ratio := vals[len(vals)-1] / vals[0]
+		if len(times) < 2 {
+			changes[gi], ratio = math.NaN(), math.NaN()
+		}
 		why := ""
-		if isNaN(changes[gi]) {
+		switch {
+		case len(times) < 2:
+			why = "a change needs two time points"
+		case isNaN(changes[gi]):
 			why = "the first or last time point has no cases"
 		}
 		a.set(prefix+"change", changes[gi], ckind, why)
-		a.set(prefix+"ratio", vals[len(vals)-1]/vals[0], Ratio, why)
+		a.set(prefix+"ratio", ratio, Ratio, why)
 	}
 	a.set("n", float64(total), Count, "")
 	a.res.Meta.N = total

@@ -346,7 +346,15 @@ func buildHistogram(s Spec) (*drawing, error) {
 			edgeFit = false
 		}
 	}
-	if edgeFit {
+	if len(s.Categories) == len(s.Bins) {
+		// Bins that stand for categories (a histogram drawn of categorical
+		// data, which the checker flags): each bin is labelled at its middle.
+		ts := make(plot.ConstantTicks, len(s.Bins))
+		for i, b := range s.Bins {
+			ts[i] = plot.Tick{Value: (b.Lo + b.Hi) / 2, Label: s.Categories[i]}
+		}
+		p.X.Tick.Marker = ts
+	} else if edgeFit {
 		ts := make(plot.ConstantTicks, len(edges))
 		for i, e := range edges {
 			ts[i] = plot.Tick{Value: e, Label: formatValue(e, false)}

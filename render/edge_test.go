@@ -107,3 +107,18 @@ func TestEdgeErrors(t *testing.T) {
 		}
 	}
 }
+
+// TestTrendOneTimePoint: a trend filtered to one time point still draws
+// (the checker's partial-series rule judges it), with no change to show.
+func TestTrendOneTimePoint(t *testing.T) {
+	rep := buildBlock(t, "t,x\n1,2\n2,3\n1,4\n", "trend: x\ntime: t\nwhere:\n  - t = 1")
+	if f := rep.Facts["b.1.mean"]; f.Value != 3 {
+		t.Errorf("b.1.mean = %+v, want 3", f)
+	}
+	if f := rep.Facts["b.change"]; f.Defined() || !strings.Contains(f.Undefined, "two time points") {
+		t.Errorf("b.change = %+v", f)
+	}
+	if rep.Figures["b"] == nil {
+		t.Error("no figure")
+	}
+}
