@@ -56,7 +56,9 @@ type Spec struct {
 	// chart); Values[i] belongs to Categories[i].
 	Series []Series
 
-	Bins   []Bin      // histogram
+	// Bins of a histogram. When Categories has one label per bin, the bins
+	// stand for those categories and are labelled with them.
+	Bins   []Bin
 	Points []Point    // scatter
 	Fit    *Fit       // scatter: the fitted line, drawn over the x range of the points
 	Boxes  []BoxStats // box plot, one per category
