@@ -12,10 +12,37 @@ func init() { analyses["compare"] = runCompare }
 
 const level95 = 0.95
 
+// compareNumericCharts and compareBinaryCharts are the kinds a comparison
+// of means and of proportions can be drawn as.
+var (
+	compareNumericCharts = []figures.Kind{figures.Dot, figures.Bar, figures.Box}
+	compareBinaryCharts  = []figures.Kind{figures.Grouped, figures.Bar, figures.Dot, figures.Stacked}
+)
+
+// compareNumericAgg is what a comparison of means publishes
+// (publishCompareNumeric): the groups in order, the reference, and each
+// group's sample of the outcome.
+type compareNumericAgg struct {
+	groups  []Group
+	ref     int
+	samples []sample
+	hidden  int // outliers the box plot does not show
+}
+
+// compareBinaryAgg is what a comparison of proportions publishes
+// (publishCompareBinary): the groups in order, the reference, the value
+// counted as a success, and each group's successes and cases.
+type compareBinaryAgg struct {
+	groups  []Group
+	ref     int
+	success string
+	xs, ns  []int
+}
+
 func runCompare(a *run) error {
 	s := a.spec
 	if s.By == s.Target[0] {
-		return Errorf(s.ByPos, "compare: by names the outcome itself; group by another column")
+		return a.errSameBy()
 	}
 	o, err := a.readOutcome(s.Target[0], s.TargetPos[0])
 	if err != nil {
@@ -25,6 +52,37 @@ func runCompare(a *run) error {
 	if err != nil {
 		return err
 	}
+	return a.compare(gs, missBy, o.binary, o.success, func(x *compareBinaryAgg) error {
+		for i, g := range gs {
+			x.xs[i], x.ns[i] = o.counts(g.Rows)
+		}
+		return nil
+	}, func(x *compareNumericAgg) error {
+		box := a.kind(figures.Dot) == figures.Box
+		for _, g := range gs {
+			v := o.values(g.Rows)
+			sm := sampleOf(v, 0, o.col)
+			if box && sm.sum.N > 0 {
+				sm.whiskers(v)
+			}
+			x.samples = append(x.samples, sm)
+		}
+		return nil
+	})
+}
+
+func (a *run) errSameBy() error {
+	return Errorf(a.spec.ByPos, "compare: by names the outcome itself; group by another column")
+}
+
+// compare is the common course of a comparison once its groups (in order;
+// missBy rows have none) and the kind of its outcome are known: it checks
+// that there are two groups or more, picks the reference, fills the
+// checker metadata and checks the chart, then has counts fill each
+// group's successes and cases (a binary outcome) or samples each group's
+// sample (a numeric one), and publishes them.
+func (a *run) compare(gs []Group, missBy int, binary bool, success string, counts func(*compareBinaryAgg) error, samples func(*compareNumericAgg) error) error {
+	s := a.spec
 	if len(gs) < 2 {
 		label := "none"
 		if len(gs) == 1 {
@@ -44,28 +102,40 @@ func runCompare(a *run) error {
 	if missBy > 0 {
 		a.note("%s rows with no value for %s are left out.", Thousands(fmt.Sprint(missBy)), s.By)
 	}
-	if o.binary {
-		return a.compareBinary(o, gs, ref)
+	if binary {
+		if err := a.chartOK(compareBinaryCharts...); err != nil {
+			return err
+		}
+		x := compareBinaryAgg{groups: gs, ref: ref, success: success, xs: make([]int, len(gs)), ns: make([]int, len(gs))}
+		if err := counts(&x); err != nil {
+			return err
+		}
+		return publishCompareBinary(a, x)
 	}
-	return a.compareNumeric(o, gs, ref)
-}
-
-// compareNumeric: group means, the difference from the reference with
-// Welch's interval and test, Cohen's d, and a one-way ANOVA for 3+ groups.
-func (a *run) compareNumeric(o *outcome, gs []Group, ref int) error {
-	s := a.spec
-	if err := a.chartOK(figures.Dot, figures.Bar, figures.Box); err != nil {
+	if err := a.chartOK(compareNumericCharts...); err != nil {
 		return err
 	}
+	x := compareNumericAgg{groups: gs, ref: ref}
+	if err := samples(&x); err != nil {
+		return err
+	}
+	return publishCompareNumeric(a, x)
+}
+
+// publishCompareNumeric publishes a comparison of means: group means, the
+// difference from the reference with Welch's interval and test, Cohen's d,
+// and a one-way ANOVA for 3+ groups.
+func publishCompareNumeric(a *run, x compareNumericAgg) error {
+	s := a.spec
+	gs, ref := x.groups, x.ref
 	a.res.Meta.Outcome = "numeric"
 	a.method("mean-sd", "t-interval", "welch", "cohen-d")
-	vals := make([]stats.Values, len(gs))
 	sums := make([]stats.Summary, len(gs))
+	moms := make([]stats.Moments, len(gs))
 	n := 0
-	for i, g := range gs {
-		vals[i] = o.values(g.Rows)
-		sums[i] = snapSummary(stats.Describe(vals[i]), o.col)
-		n += sums[i].N
+	for i, sm := range x.samples {
+		sums[i], moms[i] = sm.sum, sm.mom
+		n += sm.sum.N
 	}
 	a.res.Meta.N = n
 	a.set("n", float64(n), Count, "")
@@ -87,8 +157,8 @@ func (a *run) compareNumeric(o *outcome, gs []Group, ref int) error {
 			tab.Rows = append(tab.Rows, row)
 			continue
 		}
-		w := stats.Welch(vals[ref], vals[i], level95)
-		d := stats.CohenD(vals[ref], vals[i])
+		w := stats.WelchMoments(moms[ref], moms[i], level95)
+		d := stats.CohenDMoments(moms[ref], moms[i])
 		ratio := w.MeanB / w.MeanA
 		ratioWhy := reasonOf(w.Reason, "MeanB")
 		if ratioWhy == "" && w.MeanA == 0 {
@@ -122,7 +192,7 @@ func (a *run) compareNumeric(o *outcome, gs []Group, ref int) error {
 	tab.Notes = append(tab.Notes, fmt.Sprintf("Differences are each group's mean minus the mean of %s, with Welch's t interval and test (unequal variances); Cohen's d uses the pooled SD.", gs[ref].Label))
 	a.res.Tables = append(a.res.Tables, fitTable(tab))
 	if multi {
-		an := stats.OneWayANOVA(vals)
+		an := stats.OneWayANOVAMoments(moms)
 		a.method("anova")
 		r := an.Reason
 		a.set("f", an.F, Number, reasonOf(r, "F"))
@@ -148,6 +218,9 @@ func (a *run) compareNumeric(o *outcome, gs []Group, ref int) error {
 	fs := a.figure(figures.Dot)
 	fs.Title = fmt.Sprintf("Mean %s by %s", s.Target[0], s.By)
 	fs.XLabel, fs.YLabel = s.By, s.Target[0]
+	if fs.Kind == figures.Box {
+		a.noteHidden(x.hidden)
+	}
 	ser := figures.Series{Name: "Mean"}
 	for i, g := range gs {
 		if sums[i].N == 0 {
@@ -157,7 +230,7 @@ func (a *run) compareNumeric(o *outcome, gs []Group, ref int) error {
 		ser.Values = append(ser.Values, sums[i].Mean)
 		ser.Low = append(ser.Low, sums[i].MeanLow)
 		ser.High = append(ser.High, sums[i].MeanHigh)
-		fs.Boxes = append(fs.Boxes, boxStats(g.Label, vals[i], sums[i]))
+		fs.Boxes = append(fs.Boxes, boxStats(g.Label, x.samples[i].box, sums[i]))
 	}
 	if fs.Kind == figures.Box {
 		fs.Title = fmt.Sprintf("%s by %s", s.Target[0], s.By)
@@ -174,28 +247,23 @@ func (a *run) compareNumeric(o *outcome, gs []Group, ref int) error {
 	return nil
 }
 
-// compareBinary: proportions of successes per group, the difference in
-// percentage points with Newcombe's interval, the risk ratio (Katz) and
-// odds ratio (Woolf), the two-proportion z-test, and a chi-square test for
-// 3+ groups.
-func (a *run) compareBinary(o *outcome, gs []Group, ref int) error {
+// publishCompareBinary publishes a comparison of proportions: shares of
+// successes per group, the difference in percentage points with
+// Newcombe's interval, the risk ratio (Katz) and odds ratio (Woolf), the
+// two-proportion z-test, and a chi-square test for 3+ groups.
+func publishCompareBinary(a *run, x compareBinaryAgg) error {
 	s := a.spec
-	if err := a.chartOK(figures.Grouped, figures.Bar, figures.Dot, figures.Stacked); err != nil {
-		return err
-	}
+	gs, ref, xs, ns := x.groups, x.ref, x.xs, x.ns
 	a.res.Meta.Outcome = "binary"
 	a.method("wilson", "newcombe", "katz", "woolf", "z-test")
-	xs := make([]int, len(gs))
-	ns := make([]int, len(gs))
 	total := 0
-	for i, g := range gs {
-		xs[i], ns[i] = o.counts(g.Rows)
+	for i := range gs {
 		total += ns[i]
 	}
 	a.res.Meta.N = total
 	a.set("n", float64(total), Count, "")
 	multi := len(gs) > 2
-	succ := o.success
+	succ := x.success
 	tab := Table{Head: []string{s.By, "n", succ, "% " + succ, "95% CI", "Difference (points)", "95% CI of difference", "Risk ratio (95% CI)", "Odds ratio (95% CI)", "p"}}
 	for i, g := range gs {
 		p := g.Slug + "."

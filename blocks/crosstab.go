@@ -9,57 +9,90 @@ import (
 
 func init() { analyses["crosstab"] = runCrosstab }
 
+// crosstabCharts are the kinds a crosstab can be drawn as.
+var crosstabCharts = []figures.Kind{figures.Stacked, figures.Grouped}
+
+// crosstabAgg is what a crosstab publishes (publishCrosstab), counted from
+// the rows in memory (runCrosstab) or in the database (pdCrosstab): the
+// levels of the row and the column variable in order, and the rows of
+// every pair.
+type crosstabAgg struct {
+	rows, cols             []Group
+	counts                 [][]float64 // counts[i][j]: rows of row level i and column level j
+	rowOrdered, colOrdered bool
+}
+
 // runCrosstab counts the rows of every pair of levels of two columns, with
 // row, column and total percentages, Pearson's chi-square test of
 // independence and Cramér's V.
 func runCrosstab(a *run) error {
 	s := a.spec
-	if err := a.chartOK(figures.Stacked, figures.Grouped); err != nil {
+	if err := a.chartOK(crosstabCharts...); err != nil {
 		return err
 	}
 	if s.Target[0] == s.Target[1] {
 		return Errorf(s.TargetPos[1], "crosstab needs two different columns")
 	}
+	var x crosstabAgg
+	var err error
 	// order: applies to the row variable.
-	rows, _, rowOrdered, err := a.groups(s.Target[0], s.TargetPos[0])
-	if err != nil {
+	if x.rows, _, x.rowOrdered, err = a.groups(s.Target[0], s.TargetPos[0]); err != nil {
 		return err
 	}
-	saved := a.spec.Order
-	a.spec.Order = nil
-	cols, _, colOrdered, err := a.groups(s.Target[1], s.TargetPos[1])
-	a.spec.Order = saved
+	err = a.withoutOrder(func() (err error) {
+		x.cols, _, x.colOrdered, err = a.groups(s.Target[1], s.TargetPos[1])
+		return err
+	})
 	if err != nil {
 		return err
 	}
 	colOf := map[int]int{}
-	for j, c := range cols {
+	for j, c := range x.cols {
 		for _, i := range c.Rows {
 			colOf[i] = j
 		}
 	}
-	counts := make([][]float64, len(rows))
+	x.counts = make([][]float64, len(x.rows))
+	for i, r := range x.rows {
+		x.counts[i] = make([]float64, len(x.cols))
+		for _, k := range r.Rows {
+			if j, ok := colOf[k]; ok {
+				x.counts[i][j]++
+			}
+		}
+	}
+	return publishCrosstab(a, x)
+}
+
+// withoutOrder runs f with the order: key set aside: it orders the
+// crosstab's row variable only.
+func (a *run) withoutOrder(f func() error) error {
+	saved := a.spec.Order
+	a.spec.Order = nil
+	defer func() { a.spec.Order = saved }()
+	return f()
+}
+
+// publishCrosstab publishes a crosstab's facts, tables, checker metadata
+// and figure from its counts.
+func publishCrosstab(a *run, x crosstabAgg) error {
+	s := a.spec
+	rows, cols, counts := x.rows, x.cols, x.counts
 	rowTot := make([]float64, len(rows))
 	colTot := make([]float64, len(cols))
 	n := 0.0
-	for i, r := range rows {
-		counts[i] = make([]float64, len(cols))
-		for _, k := range r.Rows {
-			j, ok := colOf[k]
-			if !ok {
-				continue
-			}
-			counts[i][j]++
-			rowTot[i]++
-			colTot[j]++
-			n++
+	for i := range rows {
+		for j := range cols {
+			rowTot[i] += counts[i][j]
+			colTot[j] += counts[i][j]
+			n += counts[i][j]
 		}
 	}
 	if n == 0 {
 		return Errorf(s.TargetPos[0], "crosstab: no row has values for both %s and %s", s.Target[0], s.Target[1])
 	}
 	a.res.Meta.N = int(n)
-	a.res.Meta.Ordered = rowOrdered && colOrdered
+	a.res.Meta.Ordered = x.rowOrdered && x.colOrdered
 	for _, r := range rows {
 		a.res.Meta.Levels = append(a.res.Meta.Levels, r.Label)
 	}

@@ -16,6 +16,9 @@ func init() { analyses["frequency"] = runFrequency }
 // have to be tabled value by value instead of binned (when bins: is absent).
 const discreteMax = 12
 
+// frequencyCharts are the kinds a frequency table can be drawn as.
+var frequencyCharts = []figures.Kind{figures.Bar, figures.Pie, figures.Histogram, figures.Dot, figures.Line}
+
 type level struct {
 	label string
 	count int
@@ -23,76 +26,111 @@ type level struct {
 	hi    float64
 }
 
+// frequencyAgg is what a frequency table publishes (publishFrequency),
+// counted from the rows in memory (runFrequency) or in the database
+// (pdFrequency): the column's levels in table order with their counts.
+type frequencyAgg struct {
+	column  string
+	number  bool // a number column, tabled value by value or binned
+	levels  []level
+	missing int
+	binned  bool
+	ordered bool // the levels have an order of their own
+}
+
 func runFrequency(a *run) error {
 	s := a.spec
 	c := a.t.Col(s.Target[0])
-	if err := a.chartOK(figures.Bar, figures.Pie, figures.Histogram, figures.Dot, figures.Line); err != nil {
+	if err := a.chartOK(frequencyCharts...); err != nil {
 		return err
 	}
-	var levels []level
-	binned := false
-	miss := 0
-	ordered := false
-	if c.Type == TypeNumber {
+	f := frequencyAgg{column: c.Name, number: c.Type == TypeNumber}
+	if f.number {
 		v, m := presentAll(c)
-		miss = m
+		f.missing = m
 		if !s.Bins.set() && isDiscrete(v) {
-			levels = discreteLevels(v)
-			ordered = true
+			f.levels = discreteLevels(v)
+			f.ordered = true
 		} else {
 			if len(s.Order) > 0 {
-				return Errorf(s.KeyPos["order"], "order does not apply to a binned number column; bins keep the order of their values")
+				return a.errOrderBinned()
 			}
 			var err error
-			levels, err = a.binLevels(v)
+			f.levels, err = a.binLevels(stats.BinSampleOf(v, a.binRule()), c, func(edges []float64) ([]int, error) {
+				return stats.CountBins(v, edges), nil
+			})
 			if err != nil {
 				return err
 			}
-			binned, ordered = true, true
+			f.binned, f.ordered = true, true
 		}
 	} else {
 		if s.Bins.set() {
-			return Errorf(s.BinsPos, "bins applies to number columns, and %s holds %s values", c.Name, c.Type)
+			return a.errBinsOnText(c.Name, c.Type)
 		}
 		g, m, nat, err := a.groups(c.Name, s.TargetPos[0])
 		if err != nil {
 			return err
 		}
-		miss = m
-		ordered = nat
-		for _, x := range g {
-			levels = append(levels, level{label: x.Label, count: len(x.Rows)})
-		}
-		if !nat {
-			// Unordered categories: largest first, ties in order of appearance.
-			sort.SliceStable(levels, func(i, j int) bool { return levels[i].count > levels[j].count })
-		}
+		f.missing, f.ordered = m, nat
+		f.levels = categoryLevels(g, nat, func(g Group) int { return len(g.Rows) })
 	}
+	return publishFrequency(a, f)
+}
+
+func (a *run) errOrderBinned() error {
+	return Errorf(a.spec.KeyPos["order"], "order does not apply to a binned number column; bins keep the order of their values")
+}
+
+func (a *run) errBinsOnText(name string, t ColType) error {
+	return Errorf(a.spec.BinsPos, "bins applies to number columns, and %s holds %s values", name, t)
+}
+
+// categoryLevels are the levels of a category column, one per group with
+// count(group) rows: in the groups' order when it is natural (or given by
+// order:), else from the largest to the smallest, ties in the groups'
+// order (of first appearance).
+func categoryLevels(gs []Group, natural bool, count func(Group) int) []level {
+	levels := make([]level, 0, len(gs))
+	for _, g := range gs {
+		levels = append(levels, level{label: g.Label, count: count(g)})
+	}
+	if !natural {
+		sort.SliceStable(levels, func(i, j int) bool { return levels[i].count > levels[j].count })
+	}
+	return levels
+}
+
+// publishFrequency publishes a frequency table's facts, table, checker
+// metadata and figure from its levels.
+func publishFrequency(a *run, f frequencyAgg) error {
+	s := a.spec
+	name, levels, miss := f.column, f.levels, f.missing
 	n := 0
 	for _, l := range levels {
 		n += l.count
 	}
 	if n == 0 {
-		return Errorf(s.TargetPos[0], "frequency: column %q has no values here (all %d are missing)", c.Name, miss)
+		return Errorf(s.TargetPos[0], "frequency: column %q has no values here (all %d are missing)", name, miss)
 	}
 	a.res.Meta.N = n
-	a.res.Meta.Ordered = ordered
-	a.res.Meta.Binned = binned
+	a.res.Meta.Ordered = f.ordered
+	a.res.Meta.Binned = f.binned
 	a.res.Meta.Outcome = "categorical"
-	if c.Type == TypeNumber {
+	if f.number {
 		a.res.Meta.Outcome = "numeric"
 	}
 	a.set("n", float64(n), Count, "")
 	a.set("missing", float64(miss), Count, "")
 	a.set("levels", float64(len(levels)), Count, "")
-	tab := Table{Head: []string{c.Name, "Count", "Relative", "Percent", "Cumulative count", "Cumulative %"}}
+	tab := Table{Head: []string{name, "Count", "Relative", "Percent", "Cumulative count", "Cumulative %"}}
 	cum := 0
 	slugs := map[string]bool{}
 	for _, l := range levels {
 		cum += l.count
 		sl := Slug(l.label)
 		if slugs[sl] {
-			return Errorf(s.TargetPos[0], "two levels of %s share the fact name %q; rename one", c.Name, sl)
+			return Errorf(s.TargetPos[0], "two levels of %s share the fact name %q; rename one", name, sl)
 		}
 		slugs[sl] = true
 		a.res.Meta.Levels = append(a.res.Meta.Levels, l.label)
@@ -114,10 +152,10 @@ func runFrequency(a *run) error {
 	}
 	tab.Rows = append(tab.Rows, []Cell{cellText("Total"), cellNum(Format(a.res.Facts[s.ID+".n"], -1), s.ID+".n"),
 		cellNum("1.000", ""), cellNum("100.0%", ""), cellText(""), cellText("")})
-	if !ordered {
+	if !f.ordered {
 		tab.Notes = append(tab.Notes, "Categories have no order of their own; they are listed from the most to the least frequent, so cumulative figures depend on that order.")
 	}
-	if binned {
+	if f.binned {
 		tab.Notes = append(tab.Notes, "Each bin includes its lower edge and excludes its upper edge, except the last, which includes both.")
 	}
 	if miss > 0 {
@@ -126,12 +164,12 @@ func runFrequency(a *run) error {
 	a.res.Tables = append(a.res.Tables, tab)
 
 	def := figures.Bar
-	if binned {
+	if f.binned {
 		def = figures.Histogram
 	}
 	fs := a.figure(def)
-	fs.Title = "Frequency of " + c.Name
-	fs.XLabel = c.Name
+	fs.Title = "Frequency of " + name
+	fs.XLabel = name
 	fs.YLabel = "Count"
 	if s.Percent {
 		fs.YLabel = "Percent"
@@ -142,7 +180,7 @@ func runFrequency(a *run) error {
 		}
 		return float64(l.count)
 	}
-	if fs.Kind == figures.Histogram && binned {
+	if fs.Kind == figures.Histogram && f.binned {
 		for _, l := range levels {
 			fs.Bins = append(fs.Bins, figures.Bin{Lo: l.lo, Hi: l.hi, Value: value(l)})
 		}
@@ -193,37 +231,56 @@ func discreteLevels(v stats.Values) []level {
 	sort.Float64s(xs)
 	out := make([]level, len(xs))
 	for i, x := range xs {
-		out[i] = level{label: strconv.FormatFloat(x, 'f', -1, 64), count: counts[x], lo: x, hi: x}
+		out[i] = valueLevel(x, counts[x])
 	}
 	return out
 }
 
-func (a *run) binLevels(v stats.Values) ([]level, error) {
+// valueLevel is the level of one whole number of a discrete column.
+func valueLevel(x float64, count int) level {
+	return level{label: strconv.FormatFloat(x, 'f', -1, 64), count: count, lo: x, hi: x}
+}
+
+// binRule is the rule that sets the bins' width when the bins: key gives
+// neither edges nor a count: its rule, Sturges' by default; "" otherwise.
+func (a *run) binRule() string {
 	b := a.spec.Bins
+	if len(b.Edges) > 0 || b.Count > 0 {
+		return ""
+	}
+	if b.Rule == "" {
+		return "sturges"
+	}
+	return b.Rule
+}
+
+// binLevels are the bins of a number column as the bins: key asks: its
+// edges, a count of equal bins, or a rule (binRule), for the sample b (with
+// the spread its rule needs); col snaps the extremes an error shows, and
+// count counts the values in the bins between edges.
+func (a *run) binLevels(b stats.BinSample, col *Column, count func(edges []float64) ([]int, error)) ([]level, error) {
+	bins := a.spec.Bins
 	var edges []float64
 	switch {
-	case len(b.Edges) > 0:
-		edges = b.Edges
-		lo, hi := math.Inf(1), math.Inf(-1)
-		for i := 0; i < v.Len(); i++ {
-			lo, hi = math.Min(lo, v.At(i)), math.Max(hi, v.At(i))
-		}
-		if v.Len() > 0 && (lo < edges[0] || hi > edges[len(edges)-1]) {
-			return nil, Errorf(a.spec.BinsPos, "bins: the edges run from %g to %g but %s runs from %g to %g; widen the edges so every value falls in a bin", edges[0], edges[len(edges)-1], a.spec.Target[0], lo, hi)
+	case len(bins.Edges) > 0:
+		edges = bins.Edges
+		if b.N > 0 && (b.Min < edges[0] || b.Max > edges[len(edges)-1]) {
+			return nil, Errorf(a.spec.BinsPos, "bins: the edges run from %g to %g but %s runs from %g to %g; widen the edges so every value falls in a bin",
+				edges[0], edges[len(edges)-1], a.spec.Target[0], col.Snap(b.Min, 0), col.Snap(b.Max, 0))
 		}
 		a.method("bins-edges")
-	case b.Count > 0:
-		edges = stats.BinEdges(v, "", b.Count)
+	case bins.Count > 0:
+		edges = stats.BinEdgesFor(b, "", bins.Count)
 		a.method("bins-count")
 	default:
-		rule := b.Rule
-		if rule == "" {
-			rule = "sturges"
-		}
-		edges = stats.BinEdges(v, rule, 0)
+		rule := a.binRule()
+		edges = stats.BinEdgesFor(b, rule, 0)
 		a.method(rule)
 	}
-	counts := stats.CountBins(v, edges)
+	counts, err := count(edges)
+	if err != nil {
+		return nil, err
+	}
 	out := make([]level, len(counts))
 	for i, n := range counts {
 		closing := ")"

@@ -31,34 +31,15 @@ func (a *run) readOutcome(name string, pos Pos) (*outcome, error) {
 	s := a.spec
 	levels := c.Levels()
 	if s.HasSucc {
-		o := &outcome{col: c, binary: true, success: s.Success}
-		found := false
-		for _, l := range levels {
-			if sameValue(l, s.Success) {
-				found = true
-			}
-		}
-		if !found {
+		if !hasValue(levels, s.Success) {
 			return nil, Errorf(s.KeyPos["success"], "success: %q is not a value of %s%s", s.Success, name, suggestOrList(s.Success, levels))
 		}
-		o.hit = func(i int) bool { return sameValue(c.Text(i), s.Success) }
-		return o, nil
+		return &outcome{col: c, binary: true, success: s.Success, hit: func(i int) bool { return sameValue(c.Text(i), s.Success) }}, nil
 	}
-	if len(levels) <= 2 {
-		for _, p := range binaryPairs {
-			ok := true
-			for _, l := range levels {
-				if !strings.EqualFold(l, p[0]) && !strings.EqualFold(l, p[1]) {
-					ok = false
-				}
-			}
-			if ok && len(levels) > 0 {
-				succ := p[0]
-				return &outcome{col: c, binary: true, success: succ, hit: func(i int) bool {
-					return strings.EqualFold(c.Text(i), succ)
-				}}, nil
-			}
-		}
+	if succ, ok := codedSuccess(levels); ok {
+		return &outcome{col: c, binary: true, success: succ, hit: func(i int) bool {
+			return strings.EqualFold(c.Text(i), succ)
+		}}, nil
 	}
 	if c.Type == TypeNumber {
 		return &outcome{col: c}, nil
@@ -68,6 +49,38 @@ func (a *run) readOutcome(name string, pos Pos) (*outcome, error) {
 		ex = ex[:4]
 	}
 	return nil, Errorf(pos, "%s: %s holds %s values (%s), not numbers; say which value counts as a success with success:, e.g. success: %q", s.Analysis, name, c.Type, strings.Join(ex, ", "), first(levels))
+}
+
+// hasValue reports whether one of levels is the written value want
+// (sameValue).
+func hasValue(levels []string, want string) bool {
+	for _, l := range levels {
+		if sameValue(l, want) {
+			return true
+		}
+	}
+	return false
+}
+
+// codedSuccess is the success of the two-valued coding (binaryPairs) that
+// all of levels (at most two, at least one) belong to, compared without
+// case; ok is false when they belong to none.
+func codedSuccess(levels []string) (succ string, ok bool) {
+	if len(levels) == 0 || len(levels) > 2 {
+		return "", false
+	}
+	for _, p := range binaryPairs {
+		ok := true
+		for _, l := range levels {
+			if !strings.EqualFold(l, p[0]) && !strings.EqualFold(l, p[1]) {
+				ok = false
+			}
+		}
+		if ok {
+			return p[0], true
+		}
+	}
+	return "", false
 }
 
 func first(xs []string) string {

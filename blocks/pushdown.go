@@ -23,9 +23,10 @@ import (
 // on both databases: PostgreSQL's percentile_cont works in float8 and would
 // lose a NUMERIC column's exact decimals), bin counts, and a box plot's
 // whiskers and outliers. where: conditions become a WHERE clause with bound
-// values. The block's facts, tables and figure are built from those results
-// by the same rules as in memory (pushdown_run.go), and equal the in-memory
-// path's to 1e-9 relative (pushdown_test.go checks every fact of both).
+// values. The results become the same aggregates the in-memory path counts
+// (pushdown_run.go), and the same publishing step makes the block's facts,
+// tables and figure from them, so both paths equal each other to 1e-9
+// relative (pushdown_test.go checks every fact of both).
 //
 // A block falls back to reading the rows (sqlSource.rows) when a column it
 // uses cannot be read the same way in SQL (a SQLite date or untyped text
@@ -61,9 +62,6 @@ type pd struct {
 	alias map[string]int // column → index of its alias k0, k1, …
 	kind  map[string]pdKind
 	conds []pdCond
-	// centres are the first-pass means of each number column, per group,
-	// in the order of firstPass's keys.
-	centres map[string][]string
 }
 
 // pdCond is one where: condition with its values resolved.
@@ -110,7 +108,7 @@ func pushDown(s *Spec, t *Dataset, params map[string]string) (a *run, done bool,
 			return nil, false, unknownColumn(c.Pos, c.Column, t)
 		}
 	}
-	p := &pd{src: src, d: src.d, spec: s, t: t, alias: map[string]int{}, kind: map[string]pdKind{}, centres: map[string][]string{}}
+	p := &pd{src: src, d: src.d, spec: s, t: t, alias: map[string]int{}, kind: map[string]pdKind{}}
 	for _, name := range s.Columns() {
 		k := src.readable(src.col(name))
 		if k == pdNone {
@@ -560,6 +558,18 @@ func (p *pd) noRows() error {
 		return Errorf(s.Where[0].Pos, "block %s: no rows of %s meet the where: conditions; check their values", s.ID, p.t.File)
 	}
 	return Errorf(s.Pos, "block %s: data %s (%s) has no rows", s.ID, p.t.Source, p.t.File)
+}
+
+// anyRows is Run's error for an empty filtered table when levels and the
+// miss rows without a level have no rows between them.
+func (p *pd) anyRows(miss int64, levels []pdLevel) error {
+	for _, l := range levels {
+		miss += l.rows
+	}
+	if miss == 0 {
+		return p.noRows()
+	}
+	return nil
 }
 
 // levelsOf counts the rows of every level of one column: the levels in

@@ -3,10 +3,11 @@ package blocks
 import (
 	"fmt"
 	"math"
-	"math/big"
 	"sort"
 	"strconv"
 	"strings"
+
+	"candor/blocks/stats"
 )
 
 // The statements a push-down sends. Each reads the base relation (qb.base)
@@ -21,14 +22,45 @@ func (p *pd) gsel(by string) string {
 	return p.k(by)
 }
 
+// pdPass is what a first pass reads of one group's sample of a number
+// column: its rows and values, its extremes and mean as the database wrote
+// them, and its values equal to a success and other than 0 and 1.
+type pdPass struct {
+	rows, n     int64
+	min, max    string
+	centre      string // the mean, the second pass's centre ("0" without values)
+	hits, other int64
+}
+
+// combinePasses is the first pass of samples taken together.
+func combinePasses(list []pdPass) pdPass {
+	out := pdPass{centre: "0"}
+	for _, ps := range list {
+		out.rows += ps.rows
+		out.hits += ps.hits
+		out.other += ps.other
+		if ps.n == 0 {
+			continue
+		}
+		if out.n == 0 || atof(sqlValue{text: ps.min}) < atof(sqlValue{text: out.min}) {
+			out.min = ps.min
+		}
+		if out.n == 0 || atof(sqlValue{text: ps.max}) > atof(sqlValue{text: out.max}) {
+			out.max = ps.max
+		}
+		out.n += ps.n
+	}
+	return out
+}
+
 // firstPass returns, per group of by (every row when by is ""), the rows,
-// the missing values and extremes of number column x, and its mean, the
-// centre of the second pass. keys are the groups as the database wrote
-// them, NULL (a missing group) included.
+// the values and extremes of number column x, and its mean, the centre of
+// the second pass. keys are the groups as the database wrote them, NULL (a
+// missing group) included.
 //
 // It also counts the values equal to hit (1 when hit is nil) and the values
 // other than 0 and 1, which is how compare tells a 1/0 outcome.
-func (p *pd) firstPass(x, by string, hit *float64) (map[string]pdMoments, []sqlValue, error) {
+func (p *pd) firstPass(x, by string, hit *float64) (map[string]pdPass, []sqlValue, error) {
 	g := p.gsel(by)
 	xv := p.k(x)
 	q := p.newQ()
@@ -42,94 +74,89 @@ func (p *pd) firstPass(x, by string, hit *float64) (map[string]pdMoments, []sqlV
 	}
 	sqlText := fmt.Sprintf("SELECT %s, COUNT(*), COUNT(%s), MIN(%s), MAX(%s), AVG(%s), SUM(CASE WHEN %s = %s THEN 1 ELSE 0 END), SUM(CASE WHEN %s IS NULL OR %s = 0 OR %s = 1 THEN 0 ELSE 1 END) FROM %s%s",
 		g, xv, xv, xv, xv, xv, q.float(h), xv, xv, xv, q.base(), group)
-	out := map[string]pdMoments{}
+	out := map[string]pdPass{}
 	var keys []sqlValue
-	var centres []string
 	err := p.query(q, sqlText, func(v []sqlValue) error {
 		if len(keys) >= pdMaxLevels {
 			return errFallBack
 		}
-		m := zeroMoments()
-		m.rows = atoi(v[1])
-		m.n = atoi(v[2])
-		m.rowsMiss = m.rows - m.n
-		m.min, m.max = v[3].text, v[4].text
-		m.hits, m.other = atoi(v[6]), atoi(v[7])
-		centre := "0"
+		ps := pdPass{rows: atoi(v[1]), n: atoi(v[2]), min: v[3].text, max: v[4].text, centre: "0", hits: atoi(v[6]), other: atoi(v[7])}
 		if !v[5].null {
-			centre = v[5].text
+			ps.centre = v[5].text
 		}
-		k := v[0]
-		keys = append(keys, k)
-		centres = append(centres, centre)
-		out[keyOf(k)] = m
+		keys = append(keys, v[0])
+		out[keyOf(v[0])] = ps
 		return nil
 	})
 	if err != nil {
 		return nil, nil, err
 	}
-	p.centres[x] = centres
 	return out, keys, nil
 }
 
 // centredSums is the second pass of moments: the sums of the deviations'
-// first three powers from each group's first-pass mean.
-func (p *pd) centredSums(x, by string, out map[string]pdMoments, keys []sqlValue) error {
+// first three powers from each group's first-pass mean, read into each
+// group's moments (stats.MomentsFromSums).
+func (p *pd) centredSums(x, by string, pass map[string]pdPass, keys []sqlValue) (map[string]stats.Moments, error) {
 	g := p.gsel(by)
 	xv := p.k(x)
-	centres := p.centres[x]
 	// The centre as the database will subtract it: PostgreSQL subtracts a
 	// NUMERIC exactly from an integer or NUMERIC column, and in float8 from
 	// a float8 column; SQLite in binary floating point.
 	float := !p.d.pg() || p.src.col(x).store == storeFloat
-	cval := func(q *qb, i int) string {
+	centre := func(key string) (bound func(q *qb) string, exact stats.Decimal) {
+		c := pass[key].centre
 		if float {
-			f, _ := strconv.ParseFloat(centres[i], 64)
-			return q.float(f)
+			f, _ := strconv.ParseFloat(c, 64)
+			return func(q *qb) string { return q.float(f) }, stats.FloatDecimal(f)
 		}
-		return "CAST(" + q.arg(centres[i]) + " AS NUMERIC)"
+		return func(q *qb) string { return "CAST(" + q.arg(c) + " AS NUMERIC)" }, pdDecimal(sqlValue{text: c})
 	}
-	for i, k := range keys {
-		m := out[keyOf(k)]
-		if float {
-			f, _ := strconv.ParseFloat(centres[i], 64)
-			m.c = bf().SetFloat64(f)
-		} else {
-			m.c = bfText(centres[i])
-		}
-		out[keyOf(k)] = m
-	}
+	out := map[string]stats.Moments{}
 	if len(keys) == 0 {
-		return nil
+		return out, nil
 	}
 	q := p.newQ()
 	var cen string
 	if by == "" {
-		cen = cval(q, 0)
+		bound, _ := centre("")
+		cen = bound(q)
 	} else {
-		cen = q.caseOf(g, keys, func(i int) string { return cval(q, i) })
+		cen = q.caseOf(g, keys, func(i int) string { bound, _ := centre(keyOf(keys[i])); return bound(q) })
 	}
 	sqlText := fmt.Sprintf("SELECT g, SUM(d), SUM(d * d), SUM(d * d * d) FROM (SELECT %s AS g, %s - %s AS d FROM %s WHERE %s IS NOT NULL%s) AS candor_d GROUP BY g",
 		g, xv, cen, q.base(), xv, p.fence())
-	return p.query(q, sqlText, func(v []sqlValue) error {
+	err := p.query(q, sqlText, func(v []sqlValue) error {
 		key := keyOf(v[0])
-		m, ok := out[key]
+		ps, ok := pass[key]
 		if !ok {
 			return fmt.Errorf("the database returned a group it had not counted")
 		}
-		m.s1, m.s2, m.s3 = bfText(v[1].text), bfText(v[2].text), bfText(v[3].text)
-		out[key] = m
+		_, c := centre(key)
+		out[key] = stats.MomentsFromSums(int(ps.n), c, pdDecimal(v[1]), pdDecimal(v[2]), pdDecimal(v[3]))
 		return nil
 	})
+	return out, err
+}
+
+// pdDecimal reads a number the database wrote; NULL (the sum of no rows)
+// is 0.
+func pdDecimal(v sqlValue) stats.Decimal {
+	d, err := stats.ParseDecimal(v.text)
+	if v.null || err != nil {
+		return stats.Decimal{}
+	}
+	return d
 }
 
 // moments is firstPass and centredSums.
-func (p *pd) moments(x, by string) (map[string]pdMoments, []sqlValue, error) {
-	ms, keys, err := p.firstPass(x, by, nil)
+func (p *pd) moments(x, by string) (map[string]pdPass, map[string]stats.Moments, error) {
+	pass, keys, err := p.firstPass(x, by, nil)
 	if err != nil {
 		return nil, nil, err
 	}
-	return ms, keys, p.centredSums(x, by, ms, keys)
+	ms, err := p.centredSums(x, by, pass, keys)
+	return pass, ms, err
 }
 
 // pdMaxDistinct bounds the distinct values a sample's value counts may
@@ -137,26 +164,33 @@ func (p *pd) moments(x, by string) (map[string]pdMoments, []sqlValue, error) {
 // database instead.
 var pdMaxDistinct = 100000
 
-// pdHist is a sample's distinct values (as the database wrote them) with
-// their counts, in increasing order.
-type pdHist struct {
-	vals   []string
-	f      []float64
-	counts []int64
+// pdCounts are a number column's value counts: a tally per group and over
+// all rows, and the decimals its values are written with (for
+// Column.Snap).
+type pdCounts struct {
+	groups map[string]stats.Tally
+	all    stats.Tally
+	dec    int
 }
 
 // valueCounts counts the rows of every distinct value of number column x
 // per group of by (GROUP BY g, v): one statement that gives the moments,
 // quartiles, whiskers, outliers and bins of every group exactly, when the
 // values are few enough to travel (money, durations in minutes, counts).
-// ok is false when there are more than pdMaxDistinct.
-func (p *pd) valueCounts(x, by string) (map[string]*pdHist, bool, error) {
+// It returns nil when there are more than pdMaxDistinct.
+func (p *pd) valueCounts(x, by string) (*pdCounts, error) {
 	g := p.gsel(by)
 	xv := p.k(x)
 	q := p.newQ()
 	sqlText := fmt.Sprintf("SELECT g, v, COUNT(*) FROM (SELECT %s AS g, %s AS v FROM %s WHERE %s IS NOT NULL%s) AS candor_hv GROUP BY g, v",
 		g, xv, q.base(), xv, p.fence())
-	out := map[string]*pdHist{}
+	// Every value text once (one offset for all groups), and per group the
+	// indices of its values with their counts.
+	type tally struct{ idx, counts []int }
+	index := map[string]int{}
+	var texts []string
+	var all []int
+	byGroup := map[string]*tally{}
 	n := 0
 	tooMany := false
 	err := p.conn.stream(sqlText, q.args, func(v []sqlValue) error {
@@ -164,160 +198,50 @@ func (p *pd) valueCounts(x, by string) (map[string]*pdHist, bool, error) {
 			tooMany = true
 			return errStop
 		}
-		k := keyOf(v[0])
-		h := out[k]
-		if h == nil {
-			h = &pdHist{}
-			out[k] = h
+		i, ok := index[v[1].text]
+		if !ok {
+			i = len(texts)
+			index[v[1].text] = i
+			texts = append(texts, v[1].text)
+			all = append(all, 0)
 		}
-		h.vals = append(h.vals, v[1].text)
-		h.f = append(h.f, atof(v[1]))
-		h.counts = append(h.counts, atoi(v[2]))
+		c := int(atoi(v[2]))
+		all[i] += c
+		k := keyOf(v[0])
+		t := byGroup[k]
+		if t == nil {
+			t = &tally{}
+			byGroup[k] = t
+		}
+		t.idx = append(t.idx, i)
+		t.counts = append(t.counts, c)
 		return nil
 	})
 	if err != nil || tooMany {
-		return nil, false, err
+		return nil, err
 	}
-	for _, h := range out {
-		h.sort()
+	// The values exactly (stats.ParseValuesExact), so that bins and fences
+	// compare the float64 nearest to each, as the database does; their
+	// decimals as the in-memory path counts them.
+	_, dec, bad := parseNumbers(texts)
+	vals, err := stats.ParseValuesExact(texts)
+	if bad >= 0 || err != nil {
+		return nil, errFallBack
 	}
-	return out, true, nil
-}
-
-func (h *pdHist) sort() {
-	idx := make([]int, len(h.f))
-	for i := range idx {
-		idx[i] = i
+	out := &pdCounts{groups: map[string]stats.Tally{}, all: stats.NewTally(vals, all), dec: dec}
+	for k, t := range byGroup {
+		out.groups[k] = stats.NewTally(vals.Subset(t.idx), t.counts)
 	}
-	sort.Slice(idx, func(a, b int) bool { return h.f[idx[a]] < h.f[idx[b]] })
-	v, f, c := make([]string, len(idx)), make([]float64, len(idx)), make([]int64, len(idx))
-	for i, j := range idx {
-		v[i], f[i], c[i] = h.vals[j], h.f[j], h.counts[j]
-	}
-	h.vals, h.f, h.counts = v, f, c
-}
-
-// merge adds value counts together.
-func mergeHists(hs []*pdHist) *pdHist {
-	byText := map[string]int{}
-	out := &pdHist{}
-	for _, h := range hs {
-		if h == nil {
-			continue
-		}
-		for i, t := range h.vals {
-			j, ok := byText[t]
-			if !ok {
-				// The same number may be written alike in every group.
-				j = len(out.vals)
-				byText[t] = j
-				out.vals = append(out.vals, t)
-				out.f = append(out.f, h.f[i])
-				out.counts = append(out.counts, 0)
-			}
-			out.counts[j] += h.counts[i]
-		}
-	}
-	out.sort()
-	return out
-}
-
-// moments fills a sample's sums exactly from its value counts, centred at
-// its exact mean.
-func (h *pdHist) moments(m pdMoments) pdMoments {
-	m.n = 0
-	sum := bf()
-	xs := make([]*big.Float, len(h.vals))
-	for i, t := range h.vals {
-		xs[i] = bfText(t)
-		sum.Add(sum, bf().Mul(xs[i], bfInt(h.counts[i])))
-		m.n += h.counts[i]
-	}
-	m.c, m.s1, m.s2, m.s3 = bf(), bf(), bf(), bf()
-	if m.n == 0 {
-		return m
-	}
-	m.c.Quo(sum, bfInt(m.n))
-	for i, x := range xs {
-		d := bf().Sub(x, m.c)
-		d2 := bf().Mul(d, d)
-		c := bfInt(h.counts[i])
-		m.s1.Add(m.s1, bf().Mul(d, c))
-		m.s2.Add(m.s2, bf().Mul(d2, c))
-		m.s3.Add(m.s3, bf().Mul(bf().Mul(d2, d), c))
-	}
-	m.min, m.max = h.vals[0], h.vals[len(h.vals)-1]
-	return m
-}
-
-// orderStats are the values at the ranks the type 7 quartiles need.
-func (h *pdHist) orderStats(n int64) map[int64]string {
-	out := map[int64]string{}
-	ranks := quartileRanks(n)
-	var cum int64
-	k := 0
-	for i, c := range h.counts {
-		for k < len(ranks) && ranks[k] < cum+c {
-			out[ranks[k]] = h.vals[i]
-			k++
-		}
-		cum += c
-	}
-	return out
-}
-
-// box is boxes' result from value counts: the extremes within the fences
-// and every value beyond them, as often as it occurs.
-func (h *pdHist) box(lo, hi float64) *pdBox {
-	b := &pdBox{wlo: math.Inf(1), whi: math.Inf(-1)}
-	for i, x := range h.f {
-		if x < lo || x > hi {
-			for c := int64(0); c < h.counts[i]; c++ {
-				if len(b.outliers) >= pdMaxOutliers {
-					b.hidden += int(h.counts[i] - c)
-					break
-				}
-				b.outliers = append(b.outliers, x)
-			}
-			continue
-		}
-		b.wlo = math.Min(b.wlo, x)
-		b.whi = math.Max(b.whi, x)
-	}
-	return b
-}
-
-// bins counts the values between edges as stats.CountBins does.
-func (h *pdHist) bins(edges []float64) []int {
-	if len(edges) < 2 {
-		return nil
-	}
-	counts := make([]int, len(edges)-1)
-	last := edges[len(edges)-1]
-	for i, x := range h.f {
-		if x < edges[0] || x > last {
-			continue
-		}
-		if x == last {
-			counts[len(counts)-1] += int(h.counts[i])
-			continue
-		}
-		j := sort.SearchFloat64s(edges, x)
-		if edges[j] == x {
-			counts[j] += int(h.counts[i])
-		} else {
-			counts[j-1] += int(h.counts[i])
-		}
-	}
-	return counts
+	return out, nil
 }
 
 // orderStats returns, per group of by (or over all rows when by is ""),
 // the order statistics of number column x at the ranks the type 7
-// quartiles need (0-based), as the database wrote them. ms are the
-// samples' moments (for their counts), keys the groups. The ranks are
-// bound, so the database sorts and streams without counting first.
-func (p *pd) orderStats(x, by string, ms map[string]pdMoments, keys []sqlValue) (map[string]map[int64]string, error) {
+// quartiles need (stats.QuartileRanks, 0-based), as the database wrote
+// them. pass are the samples' first passes (for their counts), keys the
+// groups. The ranks are bound, so the database sorts and streams without
+// counting first.
+func (p *pd) orderStats(x, by string, pass map[string]pdPass, keys []sqlValue) (map[string]map[int64]string, error) {
 	g := p.gsel(by)
 	xv := p.k(x)
 	q := p.newQ()
@@ -327,19 +251,19 @@ func (p *pd) orderStats(x, by string, ms map[string]pdMoments, keys []sqlValue) 
 	}
 	in := func(n int64) string {
 		var ph []string
-		for _, r := range quartileRanks(n) {
-			ph = append(ph, q.arg(r))
+		for _, r := range stats.QuartileRanks(int(n)) {
+			ph = append(ph, q.arg(int64(r)))
 		}
 		return "r IN (" + strings.Join(ph, ", ") + ")"
 	}
 	var conds []string
 	if by == "" {
-		if n := ms[""].n; n > 0 {
+		if n := pass[""].n; n > 0 {
 			conds = append(conds, in(n))
 		}
 	} else {
 		for _, k := range keys {
-			if n := ms[keyOf(k)].n; !k.null && n > 0 {
+			if n := pass[keyOf(k)].n; !k.null && n > 0 {
 				conds = append(conds, "(g = "+q.key(g, k)+" AND "+in(n)+")")
 			}
 		}
@@ -361,16 +285,41 @@ func (p *pd) orderStats(x, by string, ms map[string]pdMoments, keys []sqlValue) 
 	return out, err
 }
 
+// pdQuartiles are the extremes and type 7 quartiles of a sample of n values
+// from the texts of its extremes and of its order statistics os (by rank),
+// read exactly with one offset, and the decimals they are written with
+// (for Column.Snap).
+func pdQuartiles(n int64, minText, maxText string, os map[int64]string) (stats.Quartiles, int) {
+	texts := []string{minText, maxText}
+	idx := map[int]int{}
+	for _, r := range stats.QuartileRanks(int(n)) {
+		if t, ok := os[int64(r)]; ok {
+			idx[r] = len(texts)
+			texts = append(texts, t)
+		}
+	}
+	v, dec, _ := parseNumbers(texts)
+	return stats.QuartilesFrom(int(n), v.Offset, func(r int) float64 {
+		if i, ok := idx[r]; ok {
+			return v.D[i]
+		}
+		if r == 0 {
+			return v.D[0]
+		}
+		return v.D[1] // the maximum, rank n - 1
+	}), dec
+}
+
 // binCounts counts the values of number column x in the bins between
 // edges, as stats.CountBins does: [e_i, e_i+1), the last bin closed, and
 // values outside the edges left out. The bin of a value is found by a
 // balanced tree of comparisons with the bound edges.
 func (p *pd) binCounts(x string, edges []float64) ([]int, error) {
 	k := len(edges) - 1
-	counts := make([]int, k)
 	if k < 1 {
 		return nil, nil
 	}
+	counts := make([]int, k)
 	q := p.newQ()
 	xv := "v"
 	var tree func(l, r int) string
@@ -395,17 +344,11 @@ func (p *pd) binCounts(x string, edges []float64) ([]int, error) {
 	return counts, err
 }
 
-// pdBox is one box plot's whiskers and outliers from the database.
-type pdBox struct {
-	wlo, whi float64
-	outliers []float64
-	hidden   int // outliers past pdMaxOutliers, not fetched
-}
-
 // boxes returns, per group of by (or over all rows), the most extreme
 // values of x within lo and hi (Tukey's fences) and the values beyond
-// them, as boxStats finds them.
-func (p *pd) boxes(x, by string, keys []sqlValue, lo, hi []float64) (map[string]*pdBox, error) {
+// them, as stats.BoxWhiskers finds them; past pdMaxOutliers, the most
+// extreme outliers on each side, and how many were not fetched.
+func (p *pd) boxes(x, by string, keys []sqlValue, lo, hi []float64) (map[string]*stats.Whiskers, int, error) {
 	g := p.gsel(by)
 	xv := p.k(x)
 	inner := func(q *qb) string {
@@ -420,30 +363,31 @@ func (p *pd) boxes(x, by string, keys []sqlValue, lo, hi []float64) (map[string]
 	}
 	q := p.newQ()
 	sqlText := "SELECT g, MIN(CASE WHEN v >= lo AND v <= hi THEN v END), MAX(CASE WHEN v >= lo AND v <= hi THEN v END), SUM(CASE WHEN v < lo OR v > hi THEN 1 ELSE 0 END) FROM " + inner(q) + " GROUP BY g"
-	out := map[string]*pdBox{}
+	out := map[string]*stats.Whiskers{}
 	total := int64(0)
 	err := p.query(q, sqlText, func(v []sqlValue) error {
-		b := &pdBox{wlo: math.Inf(1), whi: math.Inf(-1)}
+		w := &stats.Whiskers{Low: math.Inf(1), High: math.Inf(-1)}
 		if !v[1].null {
-			b.wlo, b.whi = atof(v[1]), atof(v[2])
+			w.Low, w.High = atof(v[1]), atof(v[2])
 		}
-		out[keyOf(v[0])] = b
+		out[keyOf(v[0])] = w
 		total += atoi(v[3])
 		return nil
 	})
 	if err != nil || total == 0 {
-		return out, err
+		return out, 0, err
 	}
 	fetch := func(cond, order string, limit int64) error {
 		q := p.newQ()
 		sqlText := "SELECT g, v FROM " + inner(q) + " WHERE " + cond + " ORDER BY v " + order + " LIMIT " + strconv.FormatInt(limit, 10)
 		return p.query(q, sqlText, func(v []sqlValue) error {
-			if b := out[keyOf(v[0])]; b != nil {
-				b.outliers = append(b.outliers, atof(v[1]))
+			if w := out[keyOf(v[0])]; w != nil {
+				w.Outliers = append(w.Outliers, atof(v[1]))
 			}
 			return nil
 		})
 	}
+	hidden := 0
 	if total <= pdMaxOutliers {
 		err = fetch("v < lo OR v > hi", "ASC", total)
 	} else {
@@ -452,18 +396,15 @@ func (p *pd) boxes(x, by string, keys []sqlValue, lo, hi []float64) (map[string]
 			err = fetch("v > hi", "DESC", pdMaxOutliers/2)
 		}
 		shown := 0
-		for _, b := range out {
-			shown += len(b.outliers)
+		for _, w := range out {
+			shown += len(w.Outliers)
 		}
-		for _, b := range out {
-			b.hidden = int(total) - shown
-			break
-		}
+		hidden = int(total) - shown
 	}
-	for _, b := range out {
-		sort.Float64s(b.outliers)
+	for _, w := range out {
+		sort.Float64s(w.Outliers)
 	}
-	return out, err
+	return out, hidden, err
 }
 
 // pairCounts counts the rows of every pair of levels of two columns

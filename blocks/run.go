@@ -282,13 +282,19 @@ func parseF(s string) float64 {
 // figure starts the block's figure of the given default kind, or the kind
 // the chart: key asks for.
 func (a *run) figure(def figures.Kind) *figures.Spec {
-	k := def
-	if a.spec.Chart != "" && a.spec.Chart != "none" {
-		k = figures.Kind(a.spec.Chart)
-	}
-	fs := &figures.Spec{Kind: k, Percent: a.spec.Percent}
+	fs := &figures.Spec{Kind: a.kind(def), Percent: a.spec.Percent}
 	a.res.Figure = fs
 	return fs
+}
+
+// kind is the kind of figure the block draws: the chart: key's, else def.
+// An analysis asks before it aggregates when a kind needs more numbers
+// (a box plot's whiskers, a histogram's bins).
+func (a *run) kind(def figures.Kind) figures.Kind {
+	if a.spec.Chart != "" && a.spec.Chart != "none" {
+		return figures.Kind(a.spec.Chart)
+	}
+	return def
 }
 
 // chartOK reports an error when chart: asks for a kind this analysis cannot

@@ -10,8 +10,48 @@ import (
 // Freedman–Diaconis width tiny against the range).
 const MaxBins = 10000
 
+// BinSample is what the binning rules need to know of a sample: its size
+// and extremes, and the spread each rule measures. A sample whose values
+// stay elsewhere (a database) gives these instead of its values.
+type BinSample struct {
+	N        int
+	Min, Max float64 // the extremes, as CountBins compares values with edges
+	Range    float64 // Max - Min, from the shifted values (Sturges)
+	SD       float64 // standard deviation with denominator n (Scott)
+	IQR      float64 // type 7 interquartile range (Freedman–Diaconis)
+}
+
+// BinSampleOf describes the non-missing values of v for rule: the extremes
+// and the range of the shifted values always, the SD (from the moments in
+// double-double arithmetic) only for "scott" and the IQR (from the sorted
+// shifted values) only for "fd"; what the rule does not need is NaN.
+func BinSampleOf(v Values, rule string) BinSample {
+	p := v.present()
+	b := BinSample{N: p.Len(), Min: math.Inf(1), Max: math.Inf(-1), SD: math.NaN(), IQR: math.NaN()}
+	dlo, dhi := math.Inf(1), math.Inf(-1)
+	for i := range p.D {
+		x := p.At(i) // the values CountBins will compare with the edges
+		b.Min, b.Max = math.Min(b.Min, x), math.Max(b.Max, x)
+		d := p.dd(i).float()
+		dlo, dhi = math.Min(dlo, d), math.Max(dhi, d)
+	}
+	b.Range = dhi - dlo
+	switch rule {
+	case "scott":
+		b.SD = centralMoments(p).PopulationSD()
+	case "fd":
+		q := quartilesOf(p)
+		b.IQR = q.Q3 - q.Q1
+	}
+	return b
+}
+
 // BinWidth is the raw bin width a rule asks for, before rounding to a nice
-// step, for the non-missing values of v:
+// step, for the non-missing values of v (BinSample.Width of BinSampleOf).
+func BinWidth(v Values, rule string) float64 { return BinSampleOf(v, rule).Width(rule) }
+
+// Width is the raw bin width a rule asks for, before rounding to a nice
+// step:
 //
 //   - "sturges": range/(log2 n + 1), Sturges (1926);
 //   - "scott": (24√π/n)^(1/3)·σ ≈ 3.49·σ·n^(-1/3), Scott (1979), with σ the
@@ -21,37 +61,41 @@ const MaxBins = 10000
 //
 // It is NaN for an unknown rule or fewer than two values, and 0 when the
 // rule's spread measure is 0.
-func BinWidth(v Values, rule string) float64 {
-	p := v.present()
-	n := p.Len()
-	if n < 2 {
+func (b BinSample) Width(rule string) float64 {
+	if b.N < 2 {
 		return math.NaN()
 	}
-	nf := float64(n)
+	nf := float64(b.N)
 	switch rule {
 	case "sturges":
-		s := sortedD(p)
-		return (s[n-1] - s[0]) / (math.Log2(nf) + 1)
+		return b.Range / (math.Log2(nf) + 1)
 	case "scott":
-		m := centralMoments(p)
-		sigma := math.Sqrt(ddDivF(m.ss, nf).float())
-		return math.Cbrt(24*math.Sqrt(math.Pi)/nf) * sigma
+		return math.Cbrt(24*math.Sqrt(math.Pi)/nf) * b.SD
 	case "fd":
-		s := sortedD(p)
-		return 2 * (Quantile(s, 0.75) - Quantile(s, 0.25)) / math.Cbrt(nf)
+		return 2 * b.IQR / math.Cbrt(nf)
 	}
 	return math.NaN()
 }
 
-// BinEdges gives histogram bin edges for the non-missing values of v.
+// BinEdges gives histogram bin edges for the non-missing values of v; it
+// is BinEdgesFor(BinSampleOf(v, rule), rule, count).
+func BinEdges(v Values, rule string, count int) []float64 {
+	p := v.present()
+	if p.Len() == 0 {
+		return nil
+	}
+	return BinEdgesFor(BinSampleOf(p, rule), rule, count)
+}
+
+// BinEdgesFor gives histogram bin edges for a sample described by b.
 //
 // With rule "count" (or "") the range [min, max] is cut into count bins of
 // equal width, edges min + i·(max-min)/count with the last edge exactly max
 // (numpy's histogram_bin_edges with an integer bins).
 //
-// With rule "sturges", "scott" or "fd" the rule's width (BinWidth) is
-// rounded up to the nearest nice step 1, 2, 2.5 or 5 × 10^k, and the edges
-// are the multiples of that step from the largest one <= min to the
+// With rule "sturges", "scott" or "fd" the rule's width (BinSample.Width)
+// is rounded up to the nearest nice step 1, 2, 2.5 or 5 × 10^k, and the
+// edges are the multiples of that step from the largest one <= min to the
 // smallest one >= max, each computed as an exact decimal rounded once, so
 // the same data always give the same round edges. A zero width (equal
 // quartiles for "fd", zero SD for "scott") or more than MaxBins bins falls
@@ -60,17 +104,11 @@ func BinWidth(v Values, rule string) float64 {
 // When every value is equal the edges span value ± 0.5 (one bin, or count
 // equal bins). It returns nil for no values, an unknown rule, or a count
 // rule with count < 1.
-func BinEdges(v Values, rule string, count int) []float64 {
-	p := v.present()
-	n := p.Len()
-	if n == 0 {
+func BinEdgesFor(b BinSample, rule string, count int) []float64 {
+	if b.N == 0 {
 		return nil
 	}
-	lo, hi := math.Inf(1), math.Inf(-1)
-	for i := range p.D {
-		x := p.At(i) // the values CountBins will compare with the edges
-		lo, hi = math.Min(lo, x), math.Max(hi, x)
-	}
+	lo, hi := b.Min, b.Max
 	switch rule {
 	case "", "count":
 		if count < 1 {
@@ -87,9 +125,9 @@ func BinEdges(v Values, rule string, count int) []float64 {
 	if lo == hi {
 		return []float64{lo - 0.5, hi + 0.5}
 	}
-	w := BinWidth(p, rule)
+	w := b.Width(rule)
 	if !(w > 0) || (hi-lo)/w > MaxBins {
-		w = BinWidth(p, "sturges")
+		w = b.Width("sturges")
 	}
 	return niceEdges(lo, hi, w)
 }
@@ -169,34 +207,48 @@ func niceEdges(lo, hi, w float64) []float64 {
 // convention). Values outside [e_0, e_last] are not counted. It returns nil
 // for fewer than two edges or edges that are not strictly increasing.
 func CountBins(v Values, edges []float64) []int {
-	if len(edges) < 2 {
+	if !increasing(edges) {
 		return nil
 	}
-	for i := 1; i < len(edges); i++ {
-		if !(edges[i] > edges[i-1]) {
-			return nil
-		}
-	}
 	counts := make([]int, len(edges)-1)
-	last := edges[len(edges)-1]
 	for i := range v.D {
 		if math.IsNaN(v.D[i]) {
 			continue
 		}
-		x := v.At(i)
-		if x < edges[0] || x > last {
-			continue
-		}
-		if x == last {
-			counts[len(counts)-1]++
-			continue
-		}
-		j := sort.SearchFloat64s(edges, x) // first edge >= x
-		if edges[j] == x {
+		if j := binOf(edges, v.At(i)); j >= 0 {
 			counts[j]++
-		} else {
-			counts[j-1]++
 		}
 	}
 	return counts
+}
+
+// increasing reports whether there are at least two edges, each above the
+// one before.
+func increasing(edges []float64) bool {
+	if len(edges) < 2 {
+		return false
+	}
+	for i := 1; i < len(edges); i++ {
+		if !(edges[i] > edges[i-1]) {
+			return false
+		}
+	}
+	return true
+}
+
+// binOf is the bin of x between edges as CountBins counts it, or -1 when x
+// lies outside them.
+func binOf(edges []float64, x float64) int {
+	last := edges[len(edges)-1]
+	if x < edges[0] || x > last {
+		return -1
+	}
+	if x == last {
+		return len(edges) - 2
+	}
+	j := sort.SearchFloat64s(edges, x) // first edge >= x
+	if edges[j] == x {
+		return j
+	}
+	return j - 1
 }

@@ -369,13 +369,7 @@ func (d Decimal) Minus(offset float64) float64 {
 	if offset == 0 {
 		return d.Float()
 	}
-	if d.big == nil && offset == math.Trunc(offset) && math.Abs(offset) < 1<<63 {
-		o := int64(offset)
-		oneg := o < 0
-		om := uint64(o)
-		if oneg {
-			om = uint64(-o)
-		}
+	if oneg, om, ok := intOffset(offset); d.big == nil && ok {
 		if d.mant == 0 {
 			return -offset
 		}
@@ -413,6 +407,18 @@ func (d Decimal) Minus(offset float64) float64 {
 		}
 	}
 	return d.minusSlow(offset)
+}
+
+// intOffset is an integer offset below 2^63 in magnitude as sign and
+// magnitude; ok is false for any other offset.
+func intOffset(offset float64) (neg bool, m uint64, ok bool) {
+	if offset != math.Trunc(offset) || !(math.Abs(offset) < 1<<63) {
+		return false, 0, false
+	}
+	if o := int64(offset); o < 0 {
+		return true, uint64(-o), true
+	}
+	return false, uint64(int64(offset)), true
 }
 
 // signedSub is (±a) - (±b) as sign and magnitude; ok is false on overflow.
@@ -472,4 +478,92 @@ func ParseValues(texts []string) (Values, error) {
 		v.D[i] = d.Minus(v.Offset)
 	}
 	return v, nil
+}
+
+// dd is d as a double-double: the nearest float64 and the remainder
+// rounded once, about 106 significant bits.
+func (d Decimal) dd() dd {
+	hi := d.Float()
+	return dd{hi, d.remainder(0, hi)}
+}
+
+// remainder is d - offset - hi rounded once, for hi = d.Minus(offset): the
+// low-order part of the exact difference. Integer offsets with mantissas
+// of up to 19 digits take an integer path; the rest is computed exactly
+// with math/big.
+func (d Decimal) remainder(offset, hi float64) float64 {
+	if math.IsNaN(hi) || math.IsInf(hi, 0) || math.IsNaN(offset) || math.IsInf(offset, 0) {
+		return 0
+	}
+	if oneg, om, ok := intOffset(offset); d.big == nil && ok {
+		switch {
+		case d.exp >= 0 && d.exp <= 19:
+			// An integer: exact in a float64 up to 2^53.
+			if h, v := bits.Mul64(d.mant, pow10u[d.exp]); h == 0 {
+				if _, m, ok := signedSub(d.neg, v, oneg, om); ok && m <= two53 {
+					return 0
+				}
+			}
+		case d.exp < 0 && -d.exp <= 19:
+			// ±m/10^k: hi·10^k = p + e exactly (a fused multiply-add), and
+			// m - p is exact, p being within an ulp of m (Sterbenz).
+			k := -int(d.exp)
+			if h, oscaled := bits.Mul64(om, pow10u[k]); h == 0 {
+				if neg, m, ok := signedSub(d.neg, d.mant, oneg, oscaled); ok && m <= two53 {
+					x := float64(m)
+					if neg {
+						x = -x
+					}
+					p, e := twoProd(hi, pow10f[k])
+					return ((x - p) - e) / pow10f[k]
+				}
+			}
+		}
+	}
+	if d.isZero() {
+		return -offset - hi
+	}
+	if mag := int(d.exp) + d.digits10(); mag > 330 || mag < -350 {
+		return 0
+	}
+	r := d.rat()
+	r.Sub(r, new(big.Rat).SetFloat64(offset))
+	r.Sub(r, new(big.Rat).SetFloat64(hi))
+	f, _ := r.Float64()
+	return f
+}
+
+// ParseValuesExact is ParseValues that keeps each value's remainder in Lo:
+// D[i] is the exact difference from Offset rounded once and Lo[i] what
+// that rounding left, rounded once more, so that a value keeps about 106
+// significant bits and At gives the float64 nearest to it (but for values
+// within 2^-106 of a tie). It suits values that are shown and compared one
+// by one, such as the distinct values of a Tally read from a database.
+func ParseValuesExact(texts []string) (Values, error) {
+	v, err := ParseValues(texts)
+	if err != nil {
+		return Values{}, err
+	}
+	v.Lo = make([]float64, len(texts))
+	for i, t := range texts {
+		d, _ := ParseDecimal(t)
+		v.Lo[i] = d.remainder(v.Offset, v.D[i])
+		v.D[i], v.Lo[i] = quickTwoSum(v.D[i], v.Lo[i])
+	}
+	return v, nil
+}
+
+// FloatDecimal is the exact value of f as a Decimal (every finite float64
+// is a decimal fraction of at most 767 significant digits), for a number a
+// database used in binary floating point, such as the centre it subtracted
+// before summing (MomentsFromSums). NaN and the infinities give 0.
+func FloatDecimal(f float64) Decimal {
+	if f == 0 || math.IsNaN(f) || math.IsInf(f, 0) {
+		return Decimal{}
+	}
+	r := new(big.Rat).SetFloat64(f) // exact; the denominator is 2^k
+	k := r.Denom().BitLen() - 1
+	m := new(big.Int).Mul(r.Num(), new(big.Int).Exp(big.NewInt(5), big.NewInt(int64(k)), nil))
+	d, _ := ParseDecimal(m.String() + "e-" + strconv.Itoa(k)) // m·5^k/10^k = m/2^k
+	return d
 }

@@ -34,50 +34,6 @@ type Summary struct {
 	Reason            Reasons
 }
 
-// moments holds the accurately centred sums of a sample, relative to its
-// offset: mean of D as a double-double and the central sums of powers.
-type moments struct {
-	n          int
-	offset     float64
-	mean       dd // mean of D (+ Lo)
-	ss, s3, s4 dd // Σ(d - mean)^2, ^3, ^4
-}
-
-// centralMoments is a two-pass computation in double-double arithmetic:
-// the mean of the shifted values first, then the sums of centred powers
-// (the "two-pass algorithm" of Chan, Golub and LeVeque 1983, here with
-// double-double sums, so that even NIST's NumAcc4 keeps its digits).
-func centralMoments(v Values) moments {
-	m := moments{n: v.Len(), offset: v.Offset}
-	if m.n == 0 {
-		return m
-	}
-	var s ddSum
-	for i := range v.D {
-		s.addDD(v.dd(i))
-	}
-	m.mean = ddDivF(s.s, float64(m.n))
-	var s2, s3, s4 ddSum
-	for i := range v.D {
-		d := ddSub(v.dd(i), m.mean)
-		d2 := ddSqr(d)
-		s2.addDD(d2)
-		s3.addDD(ddMul(d2, d))
-		s4.addDD(ddSqr(d2))
-	}
-	m.ss, m.s3, m.s4 = s2.s, s3.s, s4.s
-	return m
-}
-
-func (m moments) meanValue() float64 { return ddAddF(m.mean, m.offset).float() }
-
-func (m moments) variance() float64 {
-	if m.n < 2 {
-		return math.NaN()
-	}
-	return ddDivF(m.ss, float64(m.n-1)).float()
-}
-
 // Mean is the arithmetic mean of the non-missing values (NaN when there are
 // none), computed from the shifted values with a double-double sum.
 func Mean(v Values) float64 {
@@ -114,7 +70,7 @@ func Proportion(x, n int) float64 {
 
 // Variance is the sample variance with denominator n - 1 (NaN for n < 2),
 // by the two-pass algorithm in double-double arithmetic.
-func Variance(v Values) float64 { return centralMoments(v.present()).variance() }
+func Variance(v Values) float64 { return centralMoments(v.present()).Variance() }
 
 // SD is the sample standard deviation, √Variance.
 func SD(v Values) float64 { return math.Sqrt(Variance(v)) }
@@ -127,33 +83,12 @@ func MeanCI(v Values, level float64) (low, high float64) {
 	return m.meanCI(level)
 }
 
-func (m moments) meanCI(level float64) (low, high float64) {
-	if m.n < 2 {
-		return math.NaN(), math.NaN()
-	}
-	half := tCrit(level, float64(m.n-1)) * math.Sqrt(m.variance()/float64(m.n))
-	low = ddAddF(ddAddF(m.mean, -half), m.offset).float()
-	high = ddAddF(ddAddF(m.mean, half), m.offset).float()
-	return low, high
-}
-
 // Skewness is the adjusted Fisher–Pearson standardised moment coefficient
 // G1 = g1·√(n(n-1))/(n-2) with g1 = m3/m2^(3/2) and m_k the central moments
 // with denominator n (Joanes and Gill 1998, "b1" adjusted as G1); it equals
 // scipy.stats.skew(bias=False) and a spreadsheet's SKEW. NaN for n < 3 or
 // equal values.
 func Skewness(v Values) float64 { return centralMoments(v.present()).skewness() }
-
-func (m moments) skewness() float64 {
-	if m.n < 3 || m.ss.hi == 0 {
-		return math.NaN()
-	}
-	n := float64(m.n)
-	m2 := ddDivF(m.ss, n)
-	m3 := ddDivF(m.s3, n)
-	g1 := m3.float() / math.Pow(m2.float(), 1.5)
-	return g1 * math.Sqrt(n*(n-1)) / (n - 2)
-}
 
 // Quantile is the type 7 sample quantile of Hyndman and Fan (1996) (the
 // default of R and numpy, and a spreadsheet's QUARTILE.INC / PERCENTILE.INC):
@@ -165,17 +100,79 @@ func Quantile(sorted []float64, p float64) float64 {
 	if n == 0 || !(p >= 0 && p <= 1) {
 		return math.NaN()
 	}
+	return quantileAt(n, p, func(r int) float64 { return sorted[r] })
+}
+
+// quantileAt is Quantile of n values whose order statistic of 0-based rank
+// r is x(r); n > 0 and p in [0, 1].
+func quantileAt(n int, p float64, x func(r int) float64) float64 {
 	h := float64(n-1) * p
 	j := int(math.Floor(h))
 	if j >= n-1 {
-		return sorted[n-1]
+		return x(n - 1)
 	}
 	f := h - float64(j)
-	a, b := sorted[j], sorted[j+1]
-	if f == 0 || a == b {
+	a := x(j)
+	if f == 0 {
+		return a
+	}
+	b := x(j + 1)
+	if a == b {
 		return a
 	}
 	return a + f*(b-a)
+}
+
+// QuartileRanks are the 0-based ranks of the order statistics between which
+// the type 7 quartiles of n values interpolate (⌊h⌋ and ⌊h⌋+1 for
+// h = (n-1)p, p = 1/4, 1/2, 3/4), ascending and without repeats: what a
+// sample kept elsewhere (a database) must supply to QuartilesFrom besides
+// its extremes.
+func QuartileRanks(n int) []int {
+	if n <= 0 {
+		return nil
+	}
+	var out []int
+	for _, j := range []int{(n - 1) / 4, (n - 1) / 2, 3 * (n - 1) / 4} {
+		for _, r := range []int{j, j + 1} {
+			if r < n && (len(out) == 0 || r > out[len(out)-1]) {
+				out = append(out, r)
+			}
+		}
+	}
+	return out
+}
+
+// Quartiles are a sample's extremes and its type 7 quartiles (Hyndman and
+// Fan 1996) in the shifted form of Values: each is a value less Offset, so
+// that the IQR (Q3 - Q1) keeps the digits the offset keeps. An empty
+// sample's are NaN.
+type Quartiles struct {
+	Offset                   float64
+	Min, Q1, Median, Q3, Max float64
+}
+
+// QuartilesOf gives the extremes and type 7 quartiles of the non-missing
+// values of v, from the sorted shifted values.
+func QuartilesOf(v Values) Quartiles { return quartilesOf(v.present()) }
+
+func quartilesOf(p Values) Quartiles {
+	sorted := sortedD(p)
+	return QuartilesFrom(len(sorted), p.Offset, func(r int) float64 { return sorted[r] })
+}
+
+// QuartilesFrom gives the extremes and type 7 quartiles (Hyndman and Fan
+// 1996) of n values from their order statistics: x(r) is the value of
+// 0-based rank r less offset. It asks for the ranks 0, n - 1 and
+// QuartileRanks(n) only, so a sample kept elsewhere needs to supply just
+// those.
+func QuartilesFrom(n int, offset float64, x func(rank int) float64) Quartiles {
+	if n <= 0 {
+		nan := math.NaN()
+		return Quartiles{Offset: offset, Min: nan, Q1: nan, Median: nan, Q3: nan, Max: nan}
+	}
+	return Quartiles{Offset: offset, Min: x(0), Max: x(n - 1),
+		Q1: quantileAt(n, 0.25, x), Median: quantileAt(n, 0.5, x), Q3: quantileAt(n, 0.75, x)}
 }
 
 // sortedD returns the shifted values (D, plus Lo when present) in
@@ -194,9 +191,19 @@ func sortedD(v Values) []float64 {
 // adjusted Fisher–Pearson skewness G1 and the 95% Student t interval of the
 // mean. Mean and SD come from the two-pass algorithm on the shifted values
 // in double-double arithmetic. Undefined fields are NaN and named in Reason.
+// It is DescribeMoments(MomentsOf(v), QuartilesOf(v)).
 func Describe(v Values) Summary {
 	p := v.present()
-	m := centralMoments(p)
+	return DescribeMoments(centralMoments(p), quartilesOf(p))
+}
+
+// DescribeMoments is Describe for a sample known by its moments and
+// quartiles: n, the mean, SD (n - 1) and standard error, the 95% Student t
+// interval of the mean (Student 1908) and the adjusted Fisher–Pearson
+// skewness G1 (Joanes and Gill 1998) from m; the extremes, type 7 quartiles
+// (Hyndman and Fan 1996) and IQR from q. Undefined fields are NaN and named
+// in Reason, as Describe names them.
+func DescribeMoments(m Moments, q Quartiles) Summary {
 	s := Summary{N: m.n}
 	nan := math.NaN()
 	if m.n == 0 {
@@ -206,17 +213,15 @@ func Describe(v Values) Summary {
 		return s
 	}
 	s.Mean = m.meanValue()
-	sorted := sortedD(p)
-	at := func(q float64) float64 { return Quantile(sorted, q) + p.Offset }
-	s.Min = sorted[0] + p.Offset
-	s.Max = sorted[len(sorted)-1] + p.Offset
-	s.Q1, s.Median, s.Q3 = at(0.25), at(0.5), at(0.75)
-	s.IQR = Quantile(sorted, 0.75) - Quantile(sorted, 0.25) // offset cancels exactly
+	s.Min = q.Min + q.Offset
+	s.Max = q.Max + q.Offset
+	s.Q1, s.Median, s.Q3 = q.Q1+q.Offset, q.Median+q.Offset, q.Q3+q.Offset
+	s.IQR = q.Q3 - q.Q1 // offset cancels exactly
 	if m.n < 2 {
 		s.SD, s.SE, s.MeanLow, s.MeanHigh = nan, nan, nan, nan
 		s.Reason.set("one value has no spread", "SD", "SE", "MeanLow", "MeanHigh")
 	} else {
-		s.SD = math.Sqrt(m.variance())
+		s.SD = math.Sqrt(m.Variance())
 		s.SE = s.SD / math.Sqrt(float64(m.n))
 		s.MeanLow, s.MeanHigh = m.meanCI(0.95)
 	}

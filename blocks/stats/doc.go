@@ -13,6 +13,15 @@
 // sums, centring and least squares run in double-double arithmetic
 // (about 106 bits; Dekker 1971).
 //
+// A sample whose values stay elsewhere (a database) gives its sufficient
+// statistics instead: Moments from sums about a centre (MomentsFromSums)
+// or from parts (CombineMoments), Quartiles from order statistics
+// (QuartilesFrom), a Tally of its distinct values and their counts, and a
+// BinSample for the binning rules. DescribeMoments, WelchMoments,
+// CohenDMoments, OneWayANOVAMoments and BinEdgesFor take these, and
+// Describe, Welch, CohenD, OneWayANOVA and BinEdges are those same
+// routines on the values' own moments and order statistics.
+//
 // # Undefined results
 //
 // No routine panics on degenerate input (no values, one value, equal

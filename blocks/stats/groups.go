@@ -22,7 +22,7 @@ func offsetGap(ob, oa float64) dd { return ddFrom(ob, -oa) }
 
 // meanDiff is mean(b) - mean(a) from their moments, keeping the offsets
 // apart until the end.
-func meanDiff(a, b moments) dd {
+func meanDiff(a, b Moments) dd {
 	return ddAdd(ddSub(b.mean, a.mean), offsetGap(b.offset, a.offset))
 }
 
@@ -32,9 +32,15 @@ func meanDiff(a, b moments) dd {
 // confidence interval of the difference at level (e.g. 0.95); it equals
 // scipy.stats.ttest_ind(b, a, equal_var=False). Missing values are skipped.
 // Groups of fewer than two values, or two groups without any spread, leave
-// the test undefined (NaN, with the reason).
+// the test undefined (NaN, with the reason). It is
+// WelchMoments(MomentsOf(a), MomentsOf(b), level).
 func Welch(a, b Values, level float64) WelchResult {
-	ma, mb := centralMoments(a.present()), centralMoments(b.present())
+	return WelchMoments(MomentsOf(a), MomentsOf(b), level)
+}
+
+// WelchMoments is Welch's (1947) t-test, as Welch computes it, for two
+// samples known by their moments.
+func WelchMoments(ma, mb Moments, level float64) WelchResult {
 	nan := math.NaN()
 	r := WelchResult{NA: ma.n, NB: mb.n, MeanA: nan, MeanB: nan, SDA: nan, SDB: nan,
 		Diff: nan, SE: nan, Low: nan, High: nan, T: nan, DF: nan, P: nan}
@@ -56,7 +62,7 @@ func Welch(a, b Values, level float64) WelchResult {
 	}
 	diff := meanDiff(ma, mb)
 	r.Diff = diff.float()
-	va, vb := ma.variance(), mb.variance()
+	va, vb := ma.Variance(), mb.Variance()
 	r.SDA, r.SDB = math.Sqrt(va), math.Sqrt(vb)
 	if ma.n < 2 || mb.n < 2 {
 		r.Reason.set("a group has fewer than two values, so its variance is unknown", "SE", "Low", "High", "T", "DF", "P")
@@ -91,9 +97,13 @@ func Welch(a, b Values, level float64) WelchResult {
 // CohenD is Cohen's (1988) d for two independent samples, (x̄B - x̄A)/s_p,
 // with the pooled standard deviation
 // s_p = √(((nA-1)s²A + (nB-1)s²B)/(nA + nB - 2)). Positive when B is
-// larger. NaN when nA + nB < 3 or the pooled SD is 0.
-func CohenD(a, b Values) float64 {
-	ma, mb := centralMoments(a.present()), centralMoments(b.present())
+// larger. NaN when nA + nB < 3 or the pooled SD is 0. It is
+// CohenDMoments(MomentsOf(a), MomentsOf(b)).
+func CohenD(a, b Values) float64 { return CohenDMoments(MomentsOf(a), MomentsOf(b)) }
+
+// CohenDMoments is Cohen's (1988) d, as CohenD computes it, for two
+// samples known by their moments.
+func CohenDMoments(ma, mb Moments) float64 {
 	if ma.n == 0 || mb.n == 0 || ma.n+mb.n < 3 {
 		return math.NaN()
 	}
@@ -129,24 +139,33 @@ type ANOVA struct {
 // two-pass algorithm in double-double arithmetic; groups with different
 // offsets are brought to the first group's offset exactly. Missing values
 // are skipped and empty groups are left out (Means and Ns keep one entry
-// per input group, NaN and 0 for an empty one).
+// per input group, NaN and 0 for an empty one). It is OneWayANOVAMoments
+// of each group's MomentsOf.
 func OneWayANOVA(groups []Values) ANOVA {
+	ms := make([]Moments, len(groups))
+	for g, v := range groups {
+		ms[g] = MomentsOf(v)
+	}
+	return OneWayANOVAMoments(ms)
+}
+
+// OneWayANOVAMoments is Fisher's (1925) one-way analysis of variance, as
+// OneWayANOVA computes it, for groups known by their moments.
+func OneWayANOVAMoments(ms []Moments) ANOVA {
 	nan := math.NaN()
 	res := ANOVA{SSBetween: nan, SSWithin: nan, MSBetween: nan, MSWithin: nan, F: nan, P: nan, R2: nan, Sigma: nan, GrandMean: nan}
-	ms := make([]moments, len(groups))
-	res.Means = make([]float64, len(groups))
-	res.Ns = make([]int, len(groups))
+	res.Means = make([]float64, len(ms))
+	res.Ns = make([]int, len(ms))
 	base, haveBase := 0.0, false
-	for g, v := range groups {
-		ms[g] = centralMoments(v.present())
-		res.Ns[g] = ms[g].n
+	for g, m := range ms {
+		res.Ns[g] = m.n
 		res.Means[g] = nan
-		if ms[g].n > 0 {
-			res.Means[g] = ms[g].meanValue()
+		if m.n > 0 {
+			res.Means[g] = m.meanValue()
 			res.Groups++
-			res.N += ms[g].n
+			res.N += m.n
 			if !haveBase {
-				base, haveBase = ms[g].offset, true
+				base, haveBase = m.offset, true
 			}
 		}
 	}
@@ -156,7 +175,7 @@ func OneWayANOVA(groups []Values) ANOVA {
 		return res
 	}
 	// group means relative to the common base offset, and the grand mean
-	rel := make([]dd, len(groups))
+	rel := make([]dd, len(ms))
 	var tot, ssw ddSum
 	for g, m := range ms {
 		if m.n == 0 {

@@ -245,43 +245,69 @@ func TestNISTRegression(t *testing.T) {
 // certified values end on line 47, but the residual SD is on line 48;
 // the whole header is searched, so that quirk does not matter.
 func TestNISTANOVA(t *testing.T) {
-	for _, name := range []string{"SiRstv", "SmLs01", "SmLs02", "SmLs03", "AtmWtAg", "SmLs04", "SmLs05", "SmLs06", "SmLs07", "SmLs08", "SmLs09"} {
+	for _, name := range nistANOVASets {
 		t.Run(name, func(t *testing.T) {
-			f := readNIST(t, "anova/"+name+".dat")
-			b := f.find(t, `^Between \S+\s+(\d+)\s+(\S+)\s+(\S+)\s+(\S+)`)
-			w := f.find(t, `^Within \S+\s+(\d+)\s+(\S+)\s+(\S+)`)
-			r2 := num(t, f.find(t, `Certified R-Squared\s+(\S+)`)[0])
-			rsd := num(t, f.find(t, `^\s*Standard Deviation\s+(\S+)`)[0])
-
-			resp := values(t, f.column(t, 1))
-			labels := f.column(t, 0)
-			var order []string
-			groupIdx := map[string][]int{}
-			for i, l := range labels {
-				if _, ok := groupIdx[l]; !ok {
-					order = append(order, l)
-				}
-				groupIdx[l] = append(groupIdx[l], i)
-			}
+			set := readANOVA(t, name)
+			resp := values(t, set.resp)
 			var groups []Values
-			for _, l := range order {
-				groups = append(groups, resp.Subset(groupIdx[l]))
+			for _, l := range set.order {
+				groups = append(groups, resp.Subset(set.rows[l]))
 			}
-			a := OneWayANOVA(groups)
-			dfb, _ := strconv.Atoi(b[0])
-			dfw, _ := strconv.Atoi(w[0])
-			if a.DFBetween != dfb || a.DFWithin != dfw {
-				t.Errorf("df: got %d, %d; certified %d, %d", a.DFBetween, a.DFWithin, dfb, dfw) // NIST StRD certified degrees of freedom
-			}
-			c := &lreCheck{t: t, set: name, want: 6, low: 15}
-			c.check("SS between", a.SSBetween, num(t, b[1])) // NIST StRD certified values, this and below
-			c.check("MS between", a.MSBetween, num(t, b[2]))
-			c.check("F", a.F, num(t, b[3]))
-			c.check("SS within", a.SSWithin, num(t, w[1]))
-			c.check("MS within", a.MSWithin, num(t, w[2]))
-			c.check("R-squared", a.R2, r2)
-			c.check("residual sd", a.Sigma, rsd)
-			t.Logf("%s: min LRE %.1f", name, c.low)
+			low := set.check(t, name, OneWayANOVA(groups))
+			t.Logf("%s: min LRE %.1f", name, low)
 		})
 	}
+}
+
+var nistANOVASets = []string{"SiRstv", "SmLs01", "SmLs02", "SmLs03", "AtmWtAg", "SmLs04", "SmLs05", "SmLs06", "SmLs07", "SmLs08", "SmLs09"}
+
+// anovaSet is one StRD one-way ANOVA set: the response texts, the rows of
+// each treatment label in order of appearance, and the certified values.
+type anovaSet struct {
+	resp  []string
+	order []string
+	rows  map[string][]int
+	b, w  []string // certified df, SS, MS (and F) between and within
+	r2    float64
+	rsd   float64
+}
+
+func readANOVA(t *testing.T, name string) anovaSet {
+	t.Helper()
+	f := readNIST(t, "anova/"+name+".dat")
+	set := anovaSet{
+		b:    f.find(t, `^Between \S+\s+(\d+)\s+(\S+)\s+(\S+)\s+(\S+)`),
+		w:    f.find(t, `^Within \S+\s+(\d+)\s+(\S+)\s+(\S+)`),
+		r2:   num(t, f.find(t, `Certified R-Squared\s+(\S+)`)[0]),
+		rsd:  num(t, f.find(t, `^\s*Standard Deviation\s+(\S+)`)[0]),
+		resp: f.column(t, 1),
+		rows: map[string][]int{},
+	}
+	for i, l := range f.column(t, 0) {
+		if _, ok := set.rows[l]; !ok {
+			set.order = append(set.order, l)
+		}
+		set.rows[l] = append(set.rows[l], i)
+	}
+	return set
+}
+
+// check compares an analysis of the set with its certified values and
+// returns the smallest LRE.
+func (set anovaSet) check(t *testing.T, name string, a ANOVA) float64 {
+	t.Helper()
+	dfb, _ := strconv.Atoi(set.b[0])
+	dfw, _ := strconv.Atoi(set.w[0])
+	if a.DFBetween != dfb || a.DFWithin != dfw {
+		t.Errorf("%s df: got %d, %d; certified %d, %d", name, a.DFBetween, a.DFWithin, dfb, dfw) // NIST StRD certified degrees of freedom
+	}
+	c := &lreCheck{t: t, set: name, want: 6, low: 15}
+	c.check("SS between", a.SSBetween, num(t, set.b[1])) // NIST StRD certified values, this and below
+	c.check("MS between", a.MSBetween, num(t, set.b[2]))
+	c.check("F", a.F, num(t, set.b[3]))
+	c.check("SS within", a.SSWithin, num(t, set.w[1]))
+	c.check("MS within", a.MSWithin, num(t, set.w[2]))
+	c.check("R-squared", a.R2, set.r2)
+	c.check("residual sd", a.Sigma, set.rsd)
+	return c.low
 }

@@ -12,7 +12,8 @@ import "math"
 // Lo, when not nil, holds low-order corrections: the value is then
 // Offset + D[i] + Lo[i] with |Lo[i]| <= ulp(D[i])/2, a double-double.
 // ParseValues and the loader leave it nil; Pow and Product fill it so that
-// derived columns such as polynomial terms keep about 106 bits.
+// derived columns such as polynomial terms keep about 106 bits, and
+// ParseValuesExact so that values read one by one keep every digit.
 //
 // A NaN in D marks a missing value. The descriptive routines and tests skip
 // missing values; paired routines skip incomplete pairs; OLS rejects them.
