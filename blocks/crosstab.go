@@ -46,17 +46,21 @@ func runCrosstab(a *run) error {
 	if err != nil {
 		return err
 	}
-	colOf := map[int]int{}
+	// colOf[k] is the column level of row k, -1 where it has none.
+	colOf := make([]int32, a.t.Rows())
+	for k := range colOf {
+		colOf[k] = -1
+	}
 	for j, c := range x.cols {
-		for _, i := range c.Rows {
-			colOf[i] = j
+		for _, k := range c.Rows {
+			colOf[k] = int32(j)
 		}
 	}
 	x.counts = make([][]float64, len(x.rows))
 	for i, r := range x.rows {
 		x.counts[i] = make([]float64, len(x.cols))
 		for _, k := range r.Rows {
-			if j, ok := colOf[k]; ok {
+			if j := colOf[k]; j >= 0 {
 				x.counts[i][j]++
 			}
 		}

@@ -16,8 +16,10 @@ var comparators = map[string]series.Comparator{
 // comparisons on the table's frame. A missing value satisfies no condition,
 // as in SQL. Numbers compare numerically; text, dates and periods compare as
 // text, which for ISO dates is time order. A value written as :name is the
-// report parameter of that name.
-func Filter(t *Dataset, conds []Cond, params map[string]string) (*Dataset, error) {
+// report parameter of that name. The result keeps only the columns named
+// in cols (a block's own): a filtered copy of the others would cost memory
+// for nothing.
+func Filter(t *Dataset, conds []Cond, params map[string]string, cols []string) (*Dataset, error) {
 	if len(conds) == 0 {
 		return t, nil
 	}
@@ -74,13 +76,19 @@ func Filter(t *Dataset, conds []Cond, params map[string]string) (*Dataset, error
 			keep[i] = keep[i] && b
 		}
 	}
-	var idx []int
+	n := 0
+	for _, k := range keep {
+		if k {
+			n++
+		}
+	}
+	idx := make([]int, 0, n)
 	for i, k := range keep {
 		if k {
 			idx = append(idx, i)
 		}
 	}
-	return t.Subset(idx), nil
+	return t.Only(cols).Subset(idx), nil
 }
 
 func unknownColumn(pos Pos, name string, t *Dataset) error {

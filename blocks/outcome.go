@@ -29,17 +29,21 @@ var binaryPairs = [][2]string{{"1", "0"}, {"yes", "no"}, {"true", "false"}, {"y"
 func (a *run) readOutcome(name string, pos Pos) (*outcome, error) {
 	c := a.t.Col(name)
 	s := a.spec
-	levels := c.Levels()
 	if s.HasSucc {
-		if !hasValue(levels, s.Success) {
+		hit := successTest(c, s.Success, false)
+		found := false
+		for i := 0; i < c.Len() && !found; i++ {
+			found = !c.Missing(i) && hit(i)
+		}
+		if !found {
+			levels, _ := c.LevelsUpTo(50)
 			return nil, Errorf(s.KeyPos["success"], "success: %q is not a value of %s%s", s.Success, name, suggestOrList(s.Success, levels))
 		}
-		return &outcome{col: c, binary: true, success: s.Success, hit: func(i int) bool { return sameValue(c.Text(i), s.Success) }}, nil
+		return &outcome{col: c, binary: true, success: s.Success, hit: hit}, nil
 	}
+	levels, _ := c.LevelsUpTo(2)
 	if succ, ok := codedSuccess(levels); ok {
-		return &outcome{col: c, binary: true, success: succ, hit: func(i int) bool {
-			return strings.EqualFold(c.Text(i), succ)
-		}}, nil
+		return &outcome{col: c, binary: true, success: succ, hit: successTest(c, succ, true)}, nil
 	}
 	if c.Type == TypeNumber {
 		return &outcome{col: c}, nil
@@ -49,6 +53,26 @@ func (a *run) readOutcome(name string, pos Pos) (*outcome, error) {
 		ex = ex[:4]
 	}
 	return nil, Errorf(pos, "%s: %s holds %s values (%s), not numbers; say which value counts as a success with success:, e.g. success: %q", s.Analysis, name, c.Type, strings.Join(ex, ", "), first(levels))
+}
+
+// successTest returns whether row i holds the success value: compared as
+// numbers in a number column (so 1 matches 1.0), else as text, without case
+// when fold is set.
+func successTest(c *Column, want string, fold bool) func(i int) bool {
+	if c.Type == TypeNumber {
+		v, err := strconv.ParseFloat(want, 64)
+		if err != nil {
+			return func(int) bool { return false }
+		}
+		return func(i int) bool { return c.Snap(c.Num.At(i), 0) == v }
+	}
+	if fold {
+		return func(i int) bool { return strings.EqualFold(c.Str[i], want) }
+	}
+	if _, err := strconv.ParseFloat(want, 64); err != nil {
+		return func(i int) bool { return c.Str[i] == want }
+	}
+	return func(i int) bool { return sameValue(c.Str[i], want) }
 }
 
 // hasValue reports whether one of levels is the written value want

@@ -55,7 +55,7 @@ func Run(s *Spec, t *Dataset, params map[string]string) (res *Result, err error)
 			return nil, unknownColumn(s.PredictorsPos[i], c, t)
 		}
 	}
-	ft, err := Filter(t, s.Where, params)
+	ft, err := Filter(t, s.Where, params, s.Columns())
 	if err != nil {
 		return nil, err
 	}
@@ -201,19 +201,10 @@ type Group struct {
 // grouping column is missing belong to no group; their count is returned.
 func (a *run) groups(name string, pos Pos) ([]Group, int, bool, error) {
 	c := a.t.Col(name)
-	byLevel := map[string][]int{}
-	var levels []string
-	miss := 0
-	for i := 0; i < c.Len(); i++ {
-		if c.Missing(i) {
-			miss++
-			continue
-		}
-		l := c.Text(i)
-		if _, ok := byLevel[l]; !ok {
-			levels = append(levels, l)
-		}
-		byLevel[l] = append(byLevel[l], i)
+	levels, rows, miss := levelRows(c)
+	byLevel := make(map[string][]int, len(levels))
+	for k, l := range levels {
+		byLevel[l] = rows[k]
 	}
 	ordered, natural := a.order(levels, c)
 	ordered, err := a.applyOrder(ordered, pos)
@@ -231,6 +222,64 @@ func (a *run) groups(name string, pos Pos) ([]Group, int, bool, error) {
 		out = append(out, Group{Label: l, Slug: sl, Rows: byLevel[l]})
 	}
 	return out, miss, natural || len(a.spec.Order) > 0, nil
+}
+
+// levelRows splits the rows of a column by value: the distinct values as
+// text in order of first appearance, the rows of each, and the count of
+// missing rows. It codes each row first and sizes every list exactly, which
+// keeps a million-row column to a few allocations.
+func levelRows(c *Column) (levels []string, rows [][]int, miss int) {
+	n := c.Len()
+	codes := make([]int32, n)
+	var counts []int
+	add := func(i int) int32 {
+		levels = append(levels, c.Text(i))
+		counts = append(counts, 0)
+		return int32(len(levels) - 1)
+	}
+	if c.Type == TypeNumber {
+		index := map[float64]int32{}
+		for i, d := range c.Num.D {
+			if math.IsNaN(d) {
+				codes[i] = -1
+				miss++
+				continue
+			}
+			k, ok := index[d]
+			if !ok {
+				k = add(i)
+				index[d] = k
+			}
+			codes[i] = k
+			counts[k]++
+		}
+	} else {
+		index := map[string]int32{}
+		for i, s := range c.Str {
+			if s == "" {
+				codes[i] = -1
+				miss++
+				continue
+			}
+			k, ok := index[s]
+			if !ok {
+				k = add(i)
+				index[s] = k
+			}
+			codes[i] = k
+			counts[k]++
+		}
+	}
+	rows = make([][]int, len(levels))
+	for k := range rows {
+		rows[k] = make([]int, 0, counts[k])
+	}
+	for i, k := range codes {
+		if k >= 0 {
+			rows[k] = append(rows[k], i)
+		}
+	}
+	return levels, rows, miss
 }
 
 // order puts levels in their natural order: numbers numerically, dates and

@@ -197,25 +197,68 @@ func (t *Dataset) Subset(idx []int) *Dataset {
 		}
 		cols[i] = nc
 	}
-	return &Dataset{Source: t.Source, File: t.File, SHA256: t.SHA256, Cols: cols, byName: t.byName}
+	return &Dataset{Source: t.Source, File: t.File, SHA256: t.SHA256, HashOf: t.HashOf, Cols: cols, byName: t.byName}
 }
 
-// Levels returns the distinct non-missing values of a text column in order
-// of first appearance.
-func (c *Column) Levels() []string {
-	seen := map[string]bool{}
-	var out []string
-	for i := 0; i < c.Len(); i++ {
-		if c.Missing(i) {
-			continue
-		}
-		s := c.Text(i)
-		if !seen[s] {
-			seen[s] = true
-			out = append(out, s)
+// Only returns the data set with just the named columns (those it has), in
+// its own column order, sharing their values.
+func (t *Dataset) Only(names []string) *Dataset {
+	if t.sql != nil && len(t.Cols) == 0 {
+		return t
+	}
+	want := map[string]bool{}
+	for _, n := range names {
+		want[n] = true
+	}
+	nt := &Dataset{Source: t.Source, File: t.File, SHA256: t.SHA256, HashOf: t.HashOf, byName: map[string]int{}}
+	for _, c := range t.Cols {
+		if want[c.Name] {
+			nt.byName[c.Name] = len(nt.Cols)
+			nt.Cols = append(nt.Cols, c)
 		}
 	}
+	if len(nt.Cols) == len(t.Cols) {
+		return t
+	}
+	return nt
+}
+
+// Levels returns the distinct non-missing values of a column as text, in
+// order of first appearance.
+func (c *Column) Levels() []string {
+	out, _ := c.LevelsUpTo(-1)
 	return out
+}
+
+// LevelsUpTo is Levels that stops after max+1 distinct values (max < 0: no
+// limit); complete is false when it stopped early.
+func (c *Column) LevelsUpTo(max int) (levels []string, complete bool) {
+	if c.Type == TypeNumber {
+		seen := map[float64]bool{}
+		for i, d := range c.Num.D {
+			if math.IsNaN(d) || seen[d] {
+				continue
+			}
+			if max >= 0 && len(levels) > max {
+				return levels, false
+			}
+			seen[d] = true
+			levels = append(levels, c.Text(i))
+		}
+		return levels, true
+	}
+	seen := map[string]bool{}
+	for _, s := range c.Str {
+		if s == "" || seen[s] {
+			continue
+		}
+		if max >= 0 && len(levels) > max {
+			return levels, false
+		}
+		seen[s] = true
+		levels = append(levels, s)
+	}
+	return levels, true
 }
 
 // NaturalOrder sorts levels: numerically when every level is a number,
