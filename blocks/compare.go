@@ -16,7 +16,7 @@ const level95 = 0.95
 // of means and of proportions can be drawn as.
 var (
 	compareNumericCharts = []figures.Kind{figures.Dot, figures.Bar, figures.Box}
-	compareBinaryCharts  = []figures.Kind{figures.Grouped, figures.Bar, figures.Dot, figures.Stacked}
+	compareBinaryCharts  = []figures.Kind{figures.Grouped, figures.Bar, figures.Dot, figures.Stacked, figures.Pie}
 )
 
 // compareNumericAgg is what a comparison of means publishes

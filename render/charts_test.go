@@ -22,13 +22,13 @@ func TestDefaultCharts(t *testing.T) {
 		other []figures.Kind // overrides that must be drawn
 		bad   []string       // overrides that must be refused
 	}{
-		{"frequency: site", figures.Bar, []figures.Kind{figures.Pie, figures.Dot, figures.Line}, []string{"scatter", "box"}},
+		{"frequency: site", figures.Bar, []figures.Kind{figures.Pie, figures.Dot, figures.Line, figures.Histogram}, []string{"scatter", "box"}},
 		{"frequency: score\nbins: 3", figures.Histogram, []figures.Kind{figures.Bar}, []string{"scatter"}},
 		{"summary: score", figures.Histogram, []figures.Kind{figures.Box}, []string{"pie"}},
 		{"summary: score\nby: arm", figures.Box, []figures.Kind{figures.Dot, figures.Bar}, []string{"line"}},
 		{"crosstab: [site, passed]", figures.Stacked, []figures.Kind{figures.Grouped}, []string{"pie", "bar"}},
 		{"compare: score\nby: arm", figures.Dot, []figures.Kind{figures.Bar, figures.Box}, []string{"pie"}},
-		{"compare: passed\nby: arm", figures.Grouped, []figures.Kind{figures.Bar, figures.Dot, figures.Stacked}, []string{"line"}},
+		{"compare: passed\nby: arm", figures.Grouped, []figures.Kind{figures.Bar, figures.Dot, figures.Stacked, figures.Pie}, []string{"line"}},
 		{"correlation: [hours, score]", figures.Scatter, nil, []string{"bar"}},
 		{"regression: score\npredictors: [hours]", figures.Scatter, nil, []string{"line"}},
 		{"trend: score\ntime: week\nby: arm", figures.Line, []figures.Kind{figures.Grouped, figures.Dot}, []string{"pie"}},
