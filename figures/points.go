@@ -198,9 +198,10 @@ func buildScatter(s Spec) (*drawing, error) {
 	p.Add(grid)
 
 	if len(xy) > thinFrom {
-		// Merge points that would share a cell a quarter of a point wide
-		// even if the data area took the whole canvas: cheap, and it keeps
-		// the layout (which measures every glyph) from walking all of them.
+		// Merge points that would share a cell half a point wide if the
+		// data area took the whole canvas (the drawn area is smaller, so a
+		// cell is about 0.6 drawn points): cheap, and it keeps the layout,
+		// which measures every glyph, from walking all of them.
 		xy = thinData(xy, xr.lo, xr.hi, vmin, vmax)
 	}
 	sc, err := plotter.NewScatter(xy)
@@ -272,11 +273,10 @@ func pointsOf(xy plotter.XYs) []Point {
 const thinFrom = 5000
 
 // thinData keeps the first point (in the given order) of every cell of a
-// grid over the axes' ranges four times finer than the canvas in points:
-// cells smaller than any drawn data area makes them, so nothing visible is
-// lost.
+// grid over the axes' ranges twice as fine as the canvas in points: with
+// glyphs 6.6 points wide, points that close cannot be told apart.
 func thinData(xy plotter.XYs, xlo, xhi, ylo, yhi float64) plotter.XYs {
-	nx, ny := 4*CanvasWidth, 4*CanvasHeight
+	nx, ny := 2*CanvasWidth, 2*CanvasHeight
 	sx, sy := nx/(xhi-xlo), ny/(yhi-ylo)
 	if !(sx > 0) || !(sy > 0) || math.IsInf(sx, 0) || math.IsInf(sy, 0) {
 		return xy
