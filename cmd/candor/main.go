@@ -7,6 +7,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"runtime/debug"
 )
 
 const usage = `candor turns a Markdown report with analysis blocks into one self-contained
@@ -25,6 +26,12 @@ does, 2 for bad input (the message gives FILE:LINE:COL and what to change).
 `
 
 func main() {
+	if os.Getenv("GOGC") == "" {
+		// A report holds its data in memory while its blocks run; collecting
+		// at half the default growth keeps the peak near 1.5 times the live
+		// data instead of twice, for a few percent more time.
+		debug.SetGCPercent(50)
+	}
 	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
 }
 
