@@ -30,6 +30,9 @@ var statWords = map[string]string{
 	"median": "median", "medians": "median", "typical": "median", "midpoint": "median",
 	"sd": "sd", "deviation": "sd", "se": "se",
 	"minimum": "min", "lowest": "min", "shortest": "min", "smallest": "min", "min": "min", "fewest": "min", "least": "min",
+	"best": "extreme", "worst": "extreme", "busiest": "max", "quietest": "min", "record": "extreme",
+	"heaviest": "max", "lightest": "min", "tallest": "max", "fastest": "extreme", "slowest": "extreme", "costliest": "max",
+	"dearest": "max", "cheapest": "min", "greatest": "max", "quickest": "extreme", "speediest": "extreme",
 	"maximum": "max", "highest": "max", "longest": "max", "largest": "max", "max": "max", "peak": "max", "most": "max", "biggest": "max",
 	"quartile": "q", "quartiles": "q", "iqr": "iqr", "interquartile": "iqr",
 	"missing": "missing", "skewness": "skewness", "skewed": "skewness",
@@ -38,11 +41,12 @@ var statWords = map[string]string{
 	"cumulative": "cum_pct", "cumulatively": "cum_pct",
 	"correlation": "r", "correlated": "r", "correlates": "r", "coefficient": "estimate",
 	"variance": "r2", "explained": "r2", "explains": "r2", "explain": "r2", "r²": "r2", "r2": "r2",
+	"accounts": "r2", "account": "r2", "accounted": "r2",
 	"odds":  "odds_ratio",
 	"slope": "estimate", "additional": "estimate", "extra": "estimate", "each": "estimate",
 	"intercept": "intercept",
 	"predicted": "predict", "predicts": "predict", "predict": "predict", "forecast": "predict", "projected": "predict",
-	"prediction": "predict", "expected": "predict", "would": "predict",
+	"prediction": "predict", "expected": "predict", "expects": "predict", "expect": "predict", "would": "predict",
 }
 
 // statFits reports whether a statistic word fits a fact.
@@ -68,13 +72,15 @@ func statFits(word string, f *factInfo) bool {
 		return pred && (st == "estimate" || st == "low" || st == "high")
 	case "mean":
 		return st == "mean" || st == "mean_low" || st == "mean_high"
+	case "extreme":
+		return st == "min" || st == "max"
 	}
 	return st == word
 }
 
 // headline statistics are the ones a plain number is read against when no
 // statistic word names another.
-var headline = set("mean median pct row_pct col_pct total_pct n count total estimate change diff did ratio r rho r2 p odds_ratio")
+var headline = set("mean median pct row_pct col_pct total_pct n count total successes estimate change diff did ratio r rho r2 p odds_ratio")
 
 // statWordOf returns the statistic word of the quantity's clause ("" when
 // there is none) and whether it was a strong one (said right next to it).
@@ -96,7 +102,7 @@ func (s *sentence) statWordOf(q *quantity) string {
 		if t.low == "most" || t.low == "least" {
 			continue
 		}
-		if w == "r2" && strings.HasPrefix(t.low, "explain") && !s.has("variation", "variance", "variability", "r²", "r2") {
+		if w == "r2" && (strings.HasPrefix(t.low, "explain") || strings.HasPrefix(t.low, "account")) && !s.has("variation", "variance", "variability", "r²", "r2") {
 			continue // "shortages explained a third of late runs": not R²
 		}
 		if t.low == "each" || t.low == "would" || t.low == "total" || t.low == "sample" {
@@ -143,6 +149,37 @@ func (s *sentence) statWordOf(q *quantity) string {
 	if p, _, ok := s.hasPhraseIn("standard deviation", c); ok && p >= 0 {
 		best = "sd"
 	}
+	if best == "" {
+		best = s.headStat(q)
+	}
+	// "The longest delivery, on the South van, took 58.3 minutes": the
+	// subject's word, when no figure of its own clause takes it.
+	if best == "" && c > 0 {
+		for i := 0; i < q.tok && i < len(s.toks) && i <= 2; i++ {
+			t := s.toks[i]
+			w, ok := statWords[t.low]
+			// Only the subject's own word ("The longest delivery, ..."), not
+			// a description set off by commas ("Ashgrove, the largest
+			// school, ...").
+			if !ok || s.clause[i] != 0 || i > 2 || c == 0 || t.low == "most" || t.low == "least" {
+				continue
+			}
+			switch w {
+			case "min", "max", "extreme", "mean", "median", "q":
+			default:
+				continue
+			}
+			owned := false
+			for _, o := range s.qs {
+				if o != q && o.claim() && s.clause[o.tok] == s.clause[i] {
+					owned = true
+				}
+			}
+			if !owned {
+				best = w
+			}
+		}
+	}
 	if _, _, ok := s.hasPhraseIn("on average", c); ok && best == "" {
 		best = "mean"
 	}
@@ -161,6 +198,29 @@ func (s *sentence) hasPhraseIn(phrase string, c int) (int, int, bool) {
 // matches reports whether the true value v agrees with the stated quantity,
 // read with its hedge (see the tolerances in lexicon.go).
 func matches(q *quantity, v float64) bool {
+	if matchesAt(q, v) {
+		return true
+	}
+	// "£15.2k" against a column kept in thousands (sales_k): the figure
+	// without its scale.
+	if u := unscaled(q); u != nil {
+		return matchesAt(u, v)
+	}
+	return false
+}
+
+// unscaled returns the quantity read without its scale suffix, or nil when
+// it has none.
+func unscaled(q *quantity) *quantity {
+	if q.scale <= 1 {
+		return nil
+	}
+	u := *q
+	u.val, u.lo, u.hi, u.half, u.scale = q.val/q.scale, q.lo/q.scale, q.hi/q.scale, q.half/q.scale, 0
+	return &u
+}
+
+func matchesAt(q *quantity, v float64) bool {
 	if math.IsNaN(v) {
 		return false
 	}
@@ -176,6 +236,14 @@ func matches(q *quantity, v float64) bool {
 	tolAbout := h + aboutTolerance*math.Abs(s)
 	if q.word {
 		tolAbout = math.Max(h, wordTolerance*math.Abs(s))
+	}
+	if q.den > 0 {
+		// "nine in ten" is 90% give or take half a tenth, and no more than
+		// a tenth of the smaller side: 86.5% to 93.5%, not 82.8%.
+		tolAbout = math.Min(50/q.den, wordTolerance*math.Min(math.Abs(s), math.Abs(100-s))+2.5)
+		if q.hedge == hNone {
+			return math.Abs(v-s) <= tolAbout+eps
+		}
 	}
 	switch q.hedge {
 	case hAbout:
@@ -211,6 +279,13 @@ func matches(q *quantity, v float64) bool {
 // writer meant (a wrong figure for the right statistic, not a figure about
 // something else).
 func near(q *quantity, v float64, strong bool) bool {
+	if u := unscaled(q); u != nil && nearAt(u, v, strong) {
+		return true
+	}
+	return nearAt(q, v, strong)
+}
+
+func nearAt(q *quantity, v float64, strong bool) bool {
 	s := q.val
 	if q.lo != q.hi {
 		s = (q.lo + q.hi) / 2
@@ -224,6 +299,9 @@ func near(q *quantity, v float64, strong bool) bool {
 	}
 	r := math.Max(a, b) / math.Min(a, b)
 	if strong {
+		if q.unit == uPoints && math.Abs(a-b) <= 10 {
+			return true // "by 7 points" for a gap of 0.8: small numbers, far apart in ratio
+		}
 		return r <= 5
 	}
 	if q.unit == uPercent || q.unit == uPoints {
@@ -235,16 +313,91 @@ func near(q *quantity, v float64, strong bool) bool {
 // cand is a fact a number may be about, with how strongly the sentence ties
 // them.
 type cand struct {
-	f     *factInfo
-	score int
-	scale float64 // the fact's value times scale is compared (100 for R² as a percentage)
+	f      *factInfo
+	score  int
+	scale  float64 // the fact's value times scale is compared (100 for R² as a percentage)
+	named  int     // qualifiers of the fact that a label the sentence names fixes
+	unexpl int     // qualifiers of the fact that nothing in the sentence fixes
+	other  bool    // the share of the other outcome: 100% minus the fact
+	weak   bool    // a reading that may vouch for a figure but is never its target
+}
+
+// aboutOther reports whether the figure's clause speaks of the other
+// outcome than the block's success: negated after the figure ("did not
+// pass", "were not resolved") or in words of the other kind ("failed").
+func (p *Pass) aboutOther(bi *blockInfo, q *quantity) bool {
+	s := p.s
+	c := s.clause[q.tok]
+	for k := q.tokEnd; k < len(s.toks) && s.clause[k] == c; k++ {
+		if (negations[s.toks[k].low] && s.toks[k].low != "without") || strings.HasSuffix(s.toks[k].low, "n't") {
+			return true
+		}
+	}
+	return !p.namesOutcome(bi) && p.saysOpposite(bi)
+}
+
+// statFamily groups the statistics a number may be read as: shares,
+// levels (means, medians, quartiles), counts and changes.
+func statFamily(st string) string {
+	switch st {
+	case "pct", "row_pct", "col_pct", "total_pct", "cum_pct":
+		return "share"
+	case "n", "count", "total", "successes", "cum_count":
+		return "count"
+	case "change", "diff", "did":
+		return "change"
+	}
+	return st
+}
+
+// isBound reports whether a fact is the end of an interval (a mean's 95% CI,
+// a coefficient's, a prediction interval's): a number is read against one
+// only when its clause speaks of an interval.
+func isBound(f *factInfo) bool {
+	st := f.stat
+	return strings.HasSuffix(st, "_low") || strings.HasSuffix(st, "_high") || st == "low" || st == "high"
+}
+
+// intervalWords are the words that make a number the end of an interval.
+var intervalWords = set("interval intervals ci cis bound bounds limit limits margin plausible range end ends upper lower")
+
+// speaksOfInterval reports whether the clause of the quantity speaks of an
+// interval ("the upper end of the interval", "95% CI").
+func (s *sentence) speaksOfInterval(q *quantity) bool {
+	if q.stat == "ci" {
+		return true
+	}
+	c := s.clause[q.tok]
+	for i, t := range s.toks {
+		if t.kind == tWord && intervalWords[t.low] && (s.clause[i] == c || s.clause[i] == c-1) {
+			return true
+		}
+	}
+	return false
+}
+
+// impliedDim reports whether the sentence fixes a dimension of a fact
+// without naming one of its labels: the column of a crosstab named by its
+// own name ("refilled on time" for the column on_time).
+func (p *Pass) impliedDim(bi *blockInfo, d string) bool {
+	if bi.analysis == "crosstab" && d == "col" && len(bi.meta.Columns) > 1 {
+		return p.namesColumn(bi.meta.Columns[1])
+	}
+	if bi.analysis == "crosstab" && d == "row" && len(bi.meta.Columns) > 0 {
+		return p.namesColumn(bi.meta.Columns[0]) && len(bi.dim("row")) == 2
+	}
+	return false
 }
 
 func (c cand) v() float64 {
-	if c.scale == 0 {
-		return c.f.val()
+	v := c.f.val()
+	if c.scale != 0 {
+		v *= c.scale
 	}
-	return c.f.val() * c.scale
+	if c.other {
+		return 100 - v
+	}
+	return v
 }
 
 // levelBinding is the result of binding a stated level (not a change).
@@ -263,9 +416,11 @@ func kindFits(q *quantity, f *factInfo, sw string) (bool, float64) {
 	if q.stat != "" {
 		switch q.stat {
 		case "p":
-			return f.stat == "p", 1
+			return f.stat == "p" || f.stat == "p_welch" || f.stat == "p_z", 1
+		case "d":
+			return f.stat == "d", 1
 		case "n":
-			return f.stat == "n" && len(f.quals) <= 1, 1
+			return (f.stat == "n" || f.stat == "total" || f.stat == "count") && len(f.quals) <= 2, 1
 		case "r":
 			return f.stat == "r", 1
 		case "mean":
@@ -344,9 +499,10 @@ func (p *Pass) bindLevel(q *quantity) levelBinding {
 			}
 		}
 	}
+	bounds := s.speaksOfInterval(q)
 	for _, sc := range p.scope {
 		bi := sc.bi
-		if anyTied && !tied[bi] {
+		if (anyTied && !tied[bi]) || sc.why == "named" {
 			continue
 		}
 		ties := s.ties(bi, q)
@@ -368,7 +524,7 @@ func (p *Pass) bindLevel(q *quantity) levelBinding {
 			}
 		}
 		for _, f := range bi.facts {
-			if !f.ok() || (len(f.quals) > 0 && f.quals[0] == "figure") {
+			if !f.ok() || (len(f.quals) > 0 && f.quals[0] == "figure") || (isBound(f) && !bounds) {
 				continue
 			}
 			if len(f.quals) > 0 && overall[f.stat] && f.quals[0] != "predict" && f.quals[0] != "intercept" && bi.dimOf(f.quals[0]) != "pred" {
@@ -380,6 +536,7 @@ func (p *Pass) bindLevel(q *quantity) levelBinding {
 			}
 			score := 0
 			excluded := false
+			named, unexpl := 0, 0
 			// Labels.
 			have := map[string]string{}
 			for _, qu := range f.quals {
@@ -397,6 +554,7 @@ func (p *Pass) bindLevel(q *quantity) levelBinding {
 				if got, ok := have[d]; ok {
 					if got == l.slug {
 						score += 2
+						named++
 					} else {
 						excluded = true
 					}
@@ -406,6 +564,11 @@ func (p *Pass) bindLevel(q *quantity) levelBinding {
 			}
 			if excluded {
 				continue
+			}
+			for d := range have {
+				if tieDims[d] && ties[d] == nil && !p.impliedDim(bi, d) {
+					unexpl++
+				}
 			}
 			// Statistic words and labels.
 			switch {
@@ -435,14 +598,50 @@ func (p *Pass) bindLevel(q *quantity) levelBinding {
 			if l > 2 {
 				l = 2
 			}
-			cands = append(cands, cand{f: f, score: score + l, scale: scale})
+			cands = append(cands, cand{f: f, score: score + l, scale: scale, named: named, unexpl: unexpl})
+			// "a third of Cal's pupils did not pass": the other outcome's share.
+			// Said in words the checker does not know ("skipped the cake"), a
+			// figure equal to it is no contradiction either.
+			if q.unit == uPercent && f.fact.Kind == blocks.Percent && f.stat == "pct" && bi.meta.Outcome == "binary" {
+				if other := p.aboutOther(bi, q); other || q.hedge == hNone || q.hedge == hAbout {
+					cands = append(cands, cand{f: f, score: score + l, scale: scale, named: named, unexpl: unexpl, other: true, weak: !other})
+				}
+			}
 		}
 	}
 	cands = append(cands, p.sumCands(q)...)
+	// "Fewer than 5% gave under 7.5 hours": the levels that meet the
+	// condition, summed.
+	if q.unit == uPercent && q.stat == "" {
+		if f, _, ok := p.conditionShare(); ok {
+			cands = append(cands, cand{f: f, score: 6, named: 1})
+		}
+	}
+	// A fact every qualifier of which the sentence fixes ("fog days 8%" for
+	// the share of fog) is what the number is about; a fact with a
+	// qualifier the sentence leaves open (fog and on time) cannot vouch for
+	// it.
+	full := map[string]bool{}
+	for _, c := range cands {
+		if c.named > 0 && c.unexpl == 0 {
+			full[statFamily(c.f.stat)] = true
+		}
+	}
+	if len(full) > 0 {
+		keep := cands[:0]
+		for _, c := range cands {
+			if c.unexpl == 0 || !full[statFamily(c.f.stat)] {
+				keep = append(keep, c)
+			}
+		}
+		cands = keep
+	}
 	var out levelBinding
 	for i := range cands {
 		c := &cands[i]
-		if matches(q, c.v()) {
+		// Cohen's d's sign says which group was subtracted; a stated size
+		// is its magnitude ("d = 0.23" for -0.234).
+		if matches(q, c.v()) || (c.f.stat == "d" && q.val >= 0 && matches(q, math.Abs(c.v()))) {
 			out.all = append(out.all, *c)
 			if out.match == nil || c.score > out.match.score {
 				out.match = c
@@ -450,6 +649,16 @@ func (p *Pass) bindLevel(q *quantity) levelBinding {
 		}
 	}
 	if out.match != nil || len(cands) == 0 {
+		return out
+	}
+	strongC := cands[:0]
+	for _, c := range cands {
+		if !c.weak {
+			strongC = append(strongC, c)
+		}
+	}
+	cands = strongC
+	if len(cands) == 0 {
 		return out
 	}
 	sort.SliceStable(cands, func(i, j int) bool {
@@ -460,7 +669,7 @@ func (p *Pass) bindLevel(q *quantity) levelBinding {
 	})
 	t := cands[0]
 	out.target = &t
-	out.strong = sw != "" || q.stat != "" || len(s.ties(t.f.block, q)) > 0
+	out.strong = sw != "" || q.stat != "" || len(s.ties(t.f.block, q)) > 0 || strings.HasPrefix(t.f.local, "(")
 	return out
 }
 
@@ -477,6 +686,7 @@ type comparison struct {
 	time             bool
 	group            *label // the group of a per-group trend
 	published, named bool   // named: the sentence names one of its labels
+	both             bool   // the sentence names both of its labels
 }
 
 func (c *comparison) base() blocks.Kind { return c.from.fact.Kind }
@@ -500,6 +710,16 @@ func (c *comparison) rel() float64 {
 	return (c.to.val()/c.from.val() - 1) * 100
 }
 
+// relInverse is the relative change the other way round: (from / to − 1)
+// × 100.
+func (c *comparison) relInverse() float64 {
+	r := c.rel()
+	if math.IsNaN(r) || r <= -100 {
+		return math.NaN()
+	}
+	return (100/(1+r/100) - 100)
+}
+
 // mult is the ratio to / from.
 func (c *comparison) mult() float64 {
 	if c.ratio.ok() {
@@ -515,15 +735,15 @@ func (c *comparison) mult() float64 {
 func (c *comparison) names() string {
 	a, b := "", ""
 	if c.fromLab != nil {
-		a = c.fromLab.text
+		a = c.fromLab.name()
 	}
 	if c.toLab != nil {
-		b = c.toLab.text
+		b = c.toLab.name()
 	}
 	if c.time {
 		s := "from " + a + " to " + b
 		if c.group != nil {
-			s = c.group.text + " " + s
+			s = c.group.name() + " " + s
 		}
 		return s
 	}
@@ -560,6 +780,7 @@ func (p *Pass) comparisons(bi *blockInfo) []*comparison {
 		}
 		seen[k] = true
 		c.named = named[c.fromLab] || named[c.toLab]
+		c.both = named[c.fromLab] && named[c.toLab]
 		out = append(out, c)
 	}
 	switch bi.analysis {
@@ -691,8 +912,41 @@ func (p *Pass) comparisons(bi *blockInfo) []*comparison {
 	case "frequency":
 		stat = "pct"
 		p.namedPairs(bi, order, "level", get, addPair)
+	case "crosstab":
+		// Rows compared on the share of one column: the one the sentence
+		// names, or the "yes" of a yes/no column.
+		col := p.crosstabCol(bi)
+		if col == nil {
+			return nil
+		}
+		cget := func(quals ...string) *factInfo {
+			return bi.fact(strings.Join(append(quals, col.slug, "row_pct"), "."))
+		}
+		p.namedPairs(bi, order, "row", cget, addPair)
 	}
 	return out
+}
+
+// crosstabCol returns the column of a crosstab that a sentence comparing
+// its rows is about: a column label it names, else the "yes" of a column
+// with two levels.
+func (p *Pass) crosstabCol(bi *blockInfo) *label {
+	for _, m := range p.s.mentionsOf(bi) {
+		if m.l.dim == "col" {
+			return m.l
+		}
+	}
+	cols := bi.dim("col")
+	if len(cols) != 2 {
+		return nil
+	}
+	for _, l := range cols {
+		switch strings.ToLower(l.text) {
+		case "yes", "true", "1", "y":
+			return l
+		}
+	}
+	return nil
 }
 
 func countDim(ls []*label, d string) int {
@@ -771,6 +1025,18 @@ func (p *Pass) changeComparisons(min int) []*comparison {
 		out = append(out, cs...)
 	}
 	sort.SliceStable(out, func(i, j int) bool { return out[i].named && !out[j].named })
+	// A sentence that names both sides of a comparison ("phone bookers
+	// turned up less often than online bookers") is about that one; the
+	// block's other comparisons cannot vouch for its figure.
+	var both []*comparison
+	for _, c := range out {
+		if c.both {
+			both = append(both, c)
+		}
+	}
+	if len(both) > 0 {
+		return both
+	}
 	return out
 }
 
@@ -828,7 +1094,7 @@ func (p *Pass) sumCands(q *quantity) []cand {
 			if n < 2 {
 				continue
 			}
-			f := &factInfo{name: bi.id + ".(sum)", local: "(sum)", stat: stat, block: bi,
+			f := &factInfo{name: bi.id + ".(sum)", local: "(of the named levels together)", stat: stat, block: bi,
 				fact: blocks.Fact{Name: bi.id + ".(sum)", Value: sum, Kind: kind}}
 			if ok, _ := kindFits(q, f, ""); ok {
 				out = append(out, cand{f: f, score: 6})
@@ -847,7 +1113,7 @@ func joined(s *sentence, ms []mention, k int) bool {
 		}
 		for i := a; i < b; i++ {
 			switch s.toks[i].low {
-			case "and", "or", "&", ",", "’s", "'s":
+			case "and", "or", "&", ",", "’s", "'s", "a", "an", "the":
 			default:
 				return false
 			}

@@ -147,14 +147,25 @@ func Run(in Input) []Finding {
 	}
 	var out []Finding
 	units := mergeRows(in.Units, in.Source)
+	var lines []string // the source's lines, for table headers
 	for ui := range units {
 		u := &units[ui]
 		ut := newUnitText(u, in.Source)
 		ss := sentences(u, ut)
+		if u.Kind == "cell" {
+			if lines == nil {
+				lines = strings.Split(string(in.Source), "\n")
+			}
+			heads := tableHeads(u, lines, p.li)
+			for _, s := range ss {
+				s.heads = heads
+			}
+		}
 		p.unit = ss
 		for _, s := range ss {
 			p.s = s
 			p.scope = p.scopeOf(s)
+			p.markNames()
 			for _, r := range registry {
 				if !r.on(Prose) || off[r.ID] {
 					continue
@@ -390,4 +401,42 @@ func mergeRows(units []Unit, src []byte) []Unit {
 		out = append(out, row)
 	}
 	return out
+}
+
+// tableHeads returns the header cells of the table a row of cells stands in
+// ("| Menu | Days | Mean waste (kg) |"), read from the source: the line
+// above the table's delimiter row. A header row itself gets none.
+func tableHeads(u *Unit, lines []string, li *lineIndex) []string {
+	off := -1
+	for _, pt := range u.Parts {
+		if pt.Text != "" {
+			off = pt.Offset
+			break
+		}
+	}
+	if off < 0 || off > li.size {
+		return nil
+	}
+	line, _ := li.pos(off)
+	if line-1 >= len(lines) {
+		return nil
+	}
+	isRow := func(l string) bool { return strings.HasPrefix(strings.TrimSpace(l), "|") }
+	isDelim := func(l string) bool {
+		t := strings.TrimSpace(l)
+		return strings.HasPrefix(t, "|") && strings.Trim(t, "|-: \t") == "" && strings.Contains(t, "-")
+	}
+	for k := line - 2; k >= 1; k-- { // lines[k] is line k+1
+		if !isRow(lines[k]) {
+			return nil
+		}
+		if isDelim(lines[k]) {
+			cells := strings.Split(strings.Trim(strings.TrimSpace(lines[k-1]), "|"), "|")
+			for i := range cells {
+				cells[i] = strings.TrimSpace(cells[i])
+			}
+			return cells
+		}
+	}
+	return nil
 }

@@ -111,6 +111,22 @@ func TestExtractNumbers(t *testing.T) {
 		{"#14 on the list", 14, uNone, hNone, "id", ""},
 		{"3 times a week", 3, uNone, hNone, "", ""},
 		{"twice a week", 0, 0, 0, "none", ""},
+		{"rated the visit 4.4 out of 5", 4.4, uNone, hNone, "", ""},
+		{"gave it 4 out of 5", 4, uNone, hNone, "", ""},
+		{"one ticket in ten", 10, uPercent, hNone, "", ""},
+		{"outnumbered them three to one", 3, uTimes, hNone, "", ""},
+		{"sold 3 to 1", 3, uTimes, hNone, "", ""},
+		{"stayed half as long again", 1.5, uTimes, hNone, "", ""},
+		{"half again as long", 1.5, uTimes, hNone, "", ""},
+		{"about half a minute", 0.5, uNone, hAbout, "", ""},
+		{"a third of a point", 1.0 / 3, uPoints, hNone, "", ""},
+		{"fell by a third", 100.0 / 3, uPercent, hNone, "", ""},
+		{"took £15.2k a day", 15200, uCurrency, hNone, "", ""},
+		{"40 kg or more", 40, uNone, hAtLeast, "", ""},
+		{"came back within 30 days", 30, uNone, hNone, "window", ""},
+		{"a rating (1 to 5)", 1, uNone, hNone, "scale", ""},
+		{"on a scale of 0 to 10", 0, uNone, hNone, "scale", ""},
+		{"Table 2.1 lists them", 2.1, uNone, hNone, "id", ""},
 	}
 	for _, c := range cases {
 		qs := quantities(c.text)
@@ -134,19 +150,41 @@ func TestExtractNumbers(t *testing.T) {
 	}
 }
 
+// TestExtractNames checks that the second number of a name is a name too.
+func TestExtractNames(t *testing.T) {
+	for text, want := range map[string]string{
+		"weeks 3 to 5 of the pilot": "id",
+		"Stores 12 and 14 grew":     "id",
+		"aged 18 to 39":             "id",
+		"rose from 3 to 5":          "",
+	} {
+		qs := quantities(text)
+		if len(qs) < 2 {
+			t.Errorf("%q: %d quantities, want 2", text, len(qs))
+			continue
+		}
+		if qs[1].skip != want {
+			t.Errorf("%q: second number skip %q, want %q", text, qs[1].skip, want)
+		}
+	}
+}
+
 func TestExtractChange(t *testing.T) {
 	for text, want := range map[string]bool{
-		"renewals rose 5%":              true,
-		"renewals rose by 5 points":     true,
-		"up 5 points on last year":      true,
-		"a 5% increase":                 true,
-		"5 points higher":               true,
-		"a gap of 5 points":             true,
-		"raised uptake by 21%":          true,
-		"renewals rose to 45%":          false,
-		"renewals rose from 40% to 45%": false,
-		"45% of members renewed":        false,
-		"renewal was 45%":               false,
+		"renewals rose 5%":                               true,
+		"renewals rose by 5 points":                      true,
+		"up 5 points on last year":                       true,
+		"a 5% increase":                                  true,
+		"5 points higher":                                true,
+		"a gap of 5 points":                              true,
+		"raised uptake by 21%":                           true,
+		"did better than the youngest group by 7 points": true,
+		"fell by a third":                                true,
+		"a quarter higher":                               true,
+		"renewals rose to 45%":                           false,
+		"renewals rose from 40% to 45%":                  false,
+		"45% of members renewed":                         false,
+		"renewal was 45%":                                false,
 	} {
 		var got bool
 		for _, q := range quantities(text) {

@@ -98,7 +98,7 @@ func labelText(f *factInfo) string {
 	var parts []string
 	for _, q := range f.quals {
 		if l := f.block.labelOf("", q); l != nil {
-			parts = append(parts, l.text)
+			parts = append(parts, l.name())
 		} else if !reservedQual[q] {
 			parts = append(parts, q)
 		}
@@ -113,14 +113,38 @@ var statNames = map[string]string{
 	"q3": "upper quartile", "iqr": "IQR", "n": "n", "count": "count", "missing": "number missing",
 	"diff": "difference", "ratio": "ratio", "odds_ratio": "odds ratio", "p": "p", "r": "r", "rho": "rho", "r2": "R²",
 	"adj_r2": "adjusted R²", "d": "Cohen's d", "v": "Cramér's V", "chi2": "chi-square", "f": "F", "change": "change",
-	"did": "difference in differences", "estimate": "coefficient", "low": "interval low", "high": "interval high",
+	"p_z": "p", "p_welch": "p", "did": "difference in differences", "estimate": "coefficient", "low": "interval low", "high": "interval high",
 	"mean_low": "CI low of the mean", "mean_high": "CI high of the mean", "sigma": "residual SD", "skewness": "skewness",
 }
 
 // describe names a fact for a message: "the share for Annual",
 // "the risk ratio".
 func describe(f *factInfo) string {
+	if strings.HasPrefix(f.local, "(") {
+		// A share the checker summed from the levels: "(under 7.5 hours)".
+		what := "the share "
+		if f.stat == "count" {
+			what = "the count "
+		}
+		return what + strings.TrimSuffix(strings.TrimPrefix(f.local, "("), ")")
+	}
 	name := statNames[f.stat]
+	// "the smallest minutes", "the largest distance km": a fit's ranges by
+	// their column.
+	if cols := f.block.meta.Columns; len(f.quals) == 0 && (strings.HasPrefix(f.stat, "x_") || strings.HasPrefix(f.stat, "y_")) {
+		col := ""
+		switch {
+		case f.stat[0] == 'x' && len(f.block.meta.Predictors) == 1:
+			col = f.block.meta.Predictors[0]
+		case f.stat[0] == 'x' && len(cols) > 0:
+			col = cols[0]
+		case f.stat[0] == 'y' && len(cols) > 1:
+			col = cols[1]
+		}
+		if col != "" {
+			return map[bool]string{true: "the smallest ", false: "the largest "}[strings.HasSuffix(f.stat, "_min")] + strings.ReplaceAll(col, "_", " ")
+		}
+	}
 	if name == "" {
 		name = strings.ReplaceAll(f.stat, "_", " ")
 	}
@@ -130,7 +154,7 @@ func describe(f *factInfo) string {
 	if f.stat == "estimate" && len(f.quals) > 0 && f.quals[0] == "predict" {
 		name = "prediction"
 	}
-	if f.stat == "p" || f.stat == "r" || f.stat == "n" || f.stat == "rho" || f.stat == "d" {
+	if f.stat == "p" || f.stat == "p_z" || f.stat == "p_welch" || f.stat == "r" || f.stat == "n" || f.stat == "rho" || f.stat == "d" {
 		if lt := labelText(f); lt != "" {
 			return name + " for " + lt
 		}

@@ -17,6 +17,10 @@ func stem(w string) string {
 	if m, ok := monthStem[w]; ok {
 		return m
 	}
+	switch w {
+	case "northern", "southern", "eastern", "western":
+		return strings.TrimSuffix(w, "ern")
+	}
 	if len(w) <= 3 {
 		return w
 	}
@@ -87,7 +91,7 @@ var idNouns = set("store stores shop branch site sites station route room ward c
 	"form dock aisle floor building bay desk counter stop stand model option plan tier school hub depot office location outlet kiosk " +
 	"machine terminal register till panel batch sample trial arm quarter visit footnote note source rule issue ticket id code series season " +
 	"episode aged age ages ward wards bed beds lane street road avenue route routes bay booth window hall gp practice v version release " +
-	"module unit units cluster sector area #")
+	"module unit units cluster sector area weeks waves rounds phases stages rooms grades years #")
 
 // numberWords are the counts written in words. "one" is left out as a count
 // (it is a pronoun as often as a number) but kept for fractions.
@@ -194,7 +198,7 @@ var directionWords = map[string]int{
 	"rocketed": 1, "spiked": 1, "rebounded": 1, "recovered": 1, "expanded": 1, "widened": 1,
 	"upward": 1, "upwards": 1, "uptick": 1, "higher": 1, "greater": 1, "larger": 1, "bigger": 1, "more": 1,
 	"longer": 1, "up": 1, "doubled": 1, "tripled": 1, "trebled": 1, "quadrupled": 1, "outperformed": 1,
-	"exceeded": 1, "outpaced": 1, "outnumbered": 1, "topped": 1, "peaked": 1,
+	"exceeded": 1, "outpaced": 1, "outnumbered": 1, "topped": 1,
 	"fall": -1, "fell": -1, "fallen": -1, "falling": -1, "falls": -1,
 	"drop": -1, "dropped": -1, "drops": -1, "dropping": -1,
 	"decline": -1, "declined": -1, "declines": -1, "declining": -1,
@@ -204,20 +208,24 @@ var directionWords = map[string]int{
 	"sank": -1, "sunk": -1, "plunged": -1, "plummeted": -1, "tumbled": -1, "eased": -1, "contracted": -1,
 	"narrowed": -1, "downward": -1, "downwards": -1, "downturn": -1, "lower": -1, "less": -1, "fewer": -1,
 	"smaller": -1, "shorter": -1, "down": -1, "halved": -1, "trailed": -1, "lagged": -1, "reduction": -1,
+	"rarer": -1, "scarcer": -1, "commoner": 1, "heavier": 1, "lighter": -1, "busier": 1, "quieter": -1, "warmer": 1,
+	"colder": -1, "cooler": -1, "hotter": 1, "dearer": 1, "costlier": 1, "cheaper": -1, "wider": 1, "narrower": -1,
+	"richer": 1, "poorer": -1, "outweighed": 1, "outsold": 1, "outscored": 1, "outgrew": 1, "ahead": 1, "behind": -1,
 }
 
 // changeVerbs are direction words that describe a change over time or
 // between conditions (not a plain comparative like "higher").
 var changeVerbs = set("rise rose risen rising rises increase increased increases increasing grow grew grown growing grows growth " +
 	"climb climbed climbs climbing gain gained gains jump jumped jumps surge surged surges soar soared soars rocketed spiked " +
-	"rebounded recovered expanded widened upward upwards uptick up doubled tripled trebled quadrupled halved peaked " +
+	"rebounded recovered expanded widened upward upwards uptick up doubled tripled trebled quadrupled halved " +
 	"fall fell fallen falling falls drop dropped drops dropping decline declined declines declining decrease decreased decreases " +
 	"decreasing shrink shrank shrunk shrinking shrinks dip dipped dips slip slipped slips slid slide sank sunk plunged plummeted " +
 	"tumbled eased contracted narrowed downward downwards downturn down reduction")
 
 // comparatives compare two groups or a group with a value.
 var comparatives = set("higher lower more less fewer greater larger smaller bigger longer shorter outperformed exceeded outpaced " +
-	"outnumbered trailed lagged")
+	"outnumbered trailed lagged rarer scarcer commoner heavier lighter busier quieter warmer colder cooler hotter dearer " +
+	"costlier cheaper wider narrower richer poorer outweighed outsold outscored outgrew")
 
 // changeNouns after a number make it a change or a difference ("a 5%
 // increase", "5 points higher", "a gap of 5 points").
@@ -234,7 +242,7 @@ var changeLead = set("rise rose risen rising rises increase increased increases 
 	"decreases decreasing shrink shrank shrunk shrinking dip dipped slip slipped slid sank plunged tumbled eased " +
 	"up down higher lower more less fewer greater larger smaller bigger longer shorter improved improve improves worsened " +
 	"reduced reduces reduce cut cuts lifted raised lowered boosted trimmed widened narrowed outperformed trailed exceeded " +
-	"beat beats lagged")
+	"beat beats lagged raises lifts boosts lowers trims shaved saves saved added adds")
 
 // negations before a word turn its claim around; the rules that read
 // directions and quantifiers leave a negated claim alone.

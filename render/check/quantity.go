@@ -29,23 +29,26 @@ type quantity struct {
 	val, lo, hi float64 // lo and hi bound a stated range; both equal val otherwise
 	half        float64 // honest rounding: half a unit of the last digit written
 	unit        unitKind
-	pp          bool   // "percentage points" or "pp": points for certain
-	share       bool   // a share said as a fraction ("one in four", "half of")
-	word        bool   // said in words ("twice", "a third", "twelve")
-	multiple    string // the one-word multiple ("twice", "doubled", "halved")
-	change      bool   // a change or difference ("rose 5%", "5 points higher")
+	pp          bool    // "percentage points" or "pp": points for certain
+	share       bool    // a share said as a fraction ("one in four", "half of")
+	den         float64 // the denominator of "one in four" (4), 0 otherwise
+	word        bool    // said in words ("twice", "a third", "twelve")
+	multiple    string  // the one-word multiple ("twice", "doubled", "halved")
+	change      bool    // a change or difference ("rose 5%", "5 points higher")
 	hedge       hedge
 	hedgeText   string
-	stat        string // the statistic named right before it ("p", "r", "n", ...)
-	ref         string // the inline value it stands in
-	skip        string // why it is not a claim ("year", "date", "id", ...)
-	role        string // "from" or "to" in "from 38% to 45%"
-	noun        string // the first word after it
-	cur         string // currency sign
-	start, end  int    // the claim: hedge, number and unit
-	numStart    int    // the number itself
-	tok, tokEnd int    // token range of the number and its unit
-	first       int    // token of the claim's start (its hedge or label)
+	stat        string  // the statistic named right before it ("p", "r", "n", ...)
+	ref         string  // the inline value it stands in
+	skip        string  // why it is not a claim ("year", "date", "id", ...)
+	role        string  // "from" or "to" in "from 38% to 45%"
+	noun        string  // the first word after it
+	cur         string  // currency sign
+	scale       float64 // the multiplier of a suffix or scale word ("12k", "£3.4 million"), 0 for none
+	scaleWord   string  // how the scale was written ("k", " million")
+	start, end  int     // the claim: hedge, number and unit
+	numStart    int     // the number itself
+	tok, tokEnd int     // token range of the number and its unit
+	first       int     // token of the claim's start (its hedge or label)
 }
 
 // text returns what the sentence says, for messages.
@@ -93,6 +96,16 @@ func extract(toks []token, first bool) []*quantity {
 				if h, k := hedgeBefore(toks, i); k < i {
 					q.hedge, q.hedgeText, q.start = h, joinLow(toks, k, i), toks[k].start
 				}
+				// "four items or more".
+				if q.hedge == hNone && q.unit == uNone {
+					e := q.tokEnd
+					if e < len(toks) && toks[e].kind == tWord && !stopWords[toks[e].low] {
+						e++
+					}
+					if h, n := hedgeAfterAt(toks, e); n > 0 {
+						q.hedge, q.hedgeText = h, joinLow(toks, e, e+n)
+					}
+				}
 			}
 		}
 		if q == nil {
@@ -103,6 +116,19 @@ func extract(toks []token, first bool) []*quantity {
 		}
 		finish(toks, q)
 		out = append(out, q)
+	}
+	markScales(toks, out)
+	// "weeks 3 to 5", "aged 18 to 39", "Stores 12 and 14": the second number
+	// of a name is a name too.
+	for k := 1; k < len(out); k++ {
+		a, b := out[k-1], out[k]
+		if a.skip != "id" || b.skip != "" || b.tok != a.tokEnd+1 || b.unit != uNone {
+			continue
+		}
+		switch low(toks, a.tokEnd) {
+		case "to", "and", "or", "–", "-", "through":
+			b.skip = "id"
+		}
 	}
 	// "daytime swimmers 6.5 times." ends a sentence that compares nothing: a
 	// frequency, not a multiple.
@@ -126,6 +152,36 @@ func extract(toks []token, first bool) []*quantity {
 		}
 	}
 	return out
+}
+
+// markScales marks the ends of a rating scale as no claims: "(1 to 5)",
+// "a scale of 1 to 10", "on a 0–10 scale".
+func markScales(toks []token, qs []*quantity) {
+	small := func(q *quantity) bool {
+		return q.claim() && q.unit == uNone && q.val == math.Trunc(q.val) && q.val >= 0 && q.val <= 100
+	}
+	for k, q := range qs {
+		if !small(q) {
+			continue
+		}
+		var b *quantity
+		switch {
+		case q.hedge == hRange && q.lo <= 1 && q.hi > q.lo:
+			b = q
+		case k+1 < len(qs) && small(qs[k+1]) && qs[k+1].tok == q.tokEnd+1 && q.val <= 1 && qs[k+1].val > 1 &&
+			(low(toks, q.tokEnd) == "to" || low(toks, q.tokEnd) == "–"):
+			b = qs[k+1]
+		default:
+			continue
+		}
+		before, after := low(toks, q.first-1), low(toks, b.tokEnd)
+		if q.first == 0 {
+			before = low(toks, q.tok-1)
+		}
+		if (before == "(" && (after == ")" || after == "scale")) || after == "scale" || before == "of" && low(toks, q.tok-2) == "scale" {
+			q.skip, b.skip = "scale", "scale"
+		}
+	}
 }
 
 func low(toks []token, k int) string {
@@ -176,9 +232,11 @@ func numberQuantity(toks []token, i int, used []bool, first bool) *quantity {
 		q.unit = uTimes
 	case "k":
 		scale = 1e3
+		q.scaleWord = "k"
 	case "m", "mn", "mm":
 		if t.cur != "" {
 			scale = 1e6
+			q.scaleWord = t.suffix
 		} else {
 			q.noun = t.suffix
 		}
@@ -259,6 +317,7 @@ func numberQuantity(toks []token, i int, used []bool, first bool) *quantity {
 		switch toks[j].low {
 		case "thousand":
 			scale *= 1e3
+			q.scaleWord = " thousand"
 			j++
 		case "million", "mn", "m":
 			if toks[j].low != "m" || t.cur != "" {
@@ -271,6 +330,7 @@ func numberQuantity(toks []token, i int, used []bool, first bool) *quantity {
 		}
 	}
 	if scale != 1 {
+		q.scale = scale
 		q.val *= scale
 		q.lo, q.hi = q.val, q.val
 		q.half *= scale
@@ -320,11 +380,12 @@ func numberQuantity(toks []token, i int, used []bool, first bool) *quantity {
 	}
 	if q.hedge != hRange && (isWordTok(toks, i-1, "between") || (t.cur != "" && isWordTok(toks, i-2, "between"))) {
 		k := q.tokEnd
+		j := k + 1
 		if isWordTok(toks, k, "and") && k+2 < len(toks) && toks[k+1].kind == tPunct && toks[k+2].cur != "" {
-			k++ // "between €10 and €20"
+			j++ // "between €10 and €20"
 		}
-		if isWordTok(toks, k, "and") && k+1 < len(toks) && toks[k+1].kind == tNum {
-			hi := numberQuantity(toks, k+1, used, false)
+		if isWordTok(toks, k, "and") && j < len(toks) && toks[j].kind == tNum {
+			hi := numberQuantity(toks, j, used, false)
 			if hi != nil && hi.skip == "" {
 				q.lo, q.hi = q.val, hi.val
 				if q.unit == uNone {
@@ -339,16 +400,34 @@ func numberQuantity(toks []token, i int, used []bool, first bool) *quantity {
 	if q.lo > q.hi {
 		q.lo, q.hi = q.hi, q.lo
 	}
+	// "4.4 out of 5", "rated it 4 out of 5": a score on a scale, not a
+	// share; the scale's top is no claim.
+	if q.unit == uNone && q.hedge != hRange && isWordTok(toks, q.tokEnd, "out") && isWordTok(toks, q.tokEnd+1, "of") &&
+		q.tokEnd+2 < len(toks) && toks[q.tokEnd+2].kind == tNum && (t.dec > 0 || ratedBefore(toks, i)) {
+		q.tokEnd += 3
+		q.end = toks[q.tokEnd-1].end
+		classify(toks, i, q, first)
+		q.noun = "out"
+		return q
+	}
 	// "1 in 4", "3 out of 10".
 	if q.unit == uNone && q.hedge != hRange {
 		if b, n := ofEvery(toks, q.tokEnd); n > 0 && b > q.val && q.val > 0 && b <= 1000 {
 			q.val = 100 * q.val / b
 			q.lo, q.hi = q.val, q.val
-			q.unit, q.share = uPercent, true
+			q.unit, q.share, q.den = uPercent, true, b
 			q.half = 100 * 0.5 / b
 			q.tokEnd += n
 			q.end = toks[q.tokEnd-1].end
 		}
+	}
+	// "3 to 1": a ratio, unless it runs from one value to another.
+	if q.unit == uNone && q.hedge != hRange && isWordTok(toks, q.tokEnd, "to") && q.tokEnd+1 < len(toks) &&
+		(toks[q.tokEnd+1].low == "1" || toks[q.tokEnd+1].low == "one") && q.val > 1 && low(toks, i-1) != "from" && low(toks, i-1) != "between" &&
+		(q.tokEnd+2 >= len(toks) || toks[q.tokEnd+2].kind != tWord || !unitNouns[toks[q.tokEnd+2].low]) {
+		q.unit = uTimes
+		q.tokEnd += 2
+		q.end = toks[q.tokEnd-1].end
 	}
 	// "1.5 times" only with a comparison after it; "3 times a week" is a
 	// frequency.
@@ -358,6 +437,22 @@ func numberQuantity(toks []token, i int, used []bool, first bool) *quantity {
 	}
 	classify(toks, i, q, first)
 	return q
+}
+
+// docNouns name parts of a document, numbered with decimals too ("Table
+// 2.1", "section 3.4").
+var docNouns = set("table tables figure figures fig fig. chart section sections chapter page pages p. pp. appendix version " +
+	"release footnote note equation eq step question q rule item")
+
+// ratedBefore reports whether a rating verb stands shortly before toks[i]
+// ("rated the visit 4 out of 5", "scored it 3 out of 10").
+func ratedBefore(toks []token, i int) bool {
+	for k := i - 1; k >= 0 && k >= i-4; k-- {
+		if gaveWords[toks[k].low] || toks[k].low == "average" || toks[k].low == "averaged" || toks[k].low == "mean" {
+			return true
+		}
+	}
+	return false
 }
 
 // unitWords reads the unit written after a number at toks[j:].
@@ -401,7 +496,26 @@ func timesCompare(toks []token, j int) bool {
 		"what", "faster", "slower", "longer", "likelier", "over", "their", "its", "our":
 		return true
 	}
-	return w == "" || w == "." || w == "," || w == ")" || w == ";"
+	if w == "" || w == "." || w == "," || w == ")" || w == ";" {
+		return true
+	}
+	// "1.4 times North Sound's": times another's figure.
+	if j < len(toks) && toks[j].kind == tWord && startsUpper(toks[j].text) {
+		return true
+	}
+	for k := j; k < len(toks) && k < j+3; k++ {
+		if toks[k].kind == tWord && (strings.HasSuffix(toks[k].low, "'s") || strings.HasSuffix(toks[k].low, "’s")) {
+			return true
+		}
+		// "cold evenings'": a plural's possessive.
+		if k > j && (toks[k].text == "'" || toks[k].text == "’") && attached(toks, k) {
+			return true
+		}
+		if toks[k].kind != tWord {
+			break
+		}
+	}
+	return false
 }
 
 // ofEvery reads "in 4", "out of 10", "in every 4", "of every 4" after a
@@ -488,6 +602,10 @@ func wordQuantity(toks []token, i int, used []bool) *quantity {
 			q := mk(v, uTimes, i+2)
 			return q
 		}
+		// "outnumbered them three to one": a ratio.
+		if next == "to" && (low(toks, i+2) == "one" || low(toks, i+2) == "1") && v > 1 && prev != "from" && prev != "between" {
+			return mk(v, uTimes, i+3)
+		}
 		if (next == "-" && attached(toks, i+1) && low(toks, i+2) == "fold") || next == "fold" {
 			end := i + 2
 			if next == "-" {
@@ -495,11 +613,29 @@ func wordQuantity(toks []token, i int, used []bool) *quantity {
 			}
 			return mk(v, uTimes, end)
 		}
-		// "one in four", "three out of ten".
+		// "one in four", "three out of ten", "one ticket in ten".
 		if b, n := ofEvery(toks, i+1); n > 0 && b > v && v > 0 {
 			q := mk(100*v/b, uPercent, i+1+n)
-			q.share = true
+			q.share, q.den = true, b
 			return q
+		}
+		// "one ticket in ten", "one evening drop-off in three": a noun
+		// phrase of up to four words between.
+		if i+1 < len(toks) && toks[i+1].kind == tWord && !stopWords[next] && !prepositions[next] {
+			for k := i + 2; k < len(toks) && k <= i+5; k++ {
+				if isWordTok(toks, k, "in") {
+					if b, n := ofEvery(toks, k); n > 0 && b > v && v > 0 {
+						q := mk(100*v/b, uPercent, k+n)
+						q.share, q.den = true, b
+						return q
+					}
+					break
+				}
+				compound := toks[k-1].text == "-" && attached(toks, k) // "drop-off"
+				if !(toks[k].kind == tWord && (compound || !prepositions[toks[k].low] && !stopWords[toks[k].low])) && toks[k].text != "-" {
+					break
+				}
+			}
 		}
 		// Fractions: "two thirds of", "one third of", "three quarters of".
 		if den, ok := fractionWords[next]; ok && v >= 1 && v < den && (v > 1 || den != 2) {
@@ -550,6 +686,21 @@ func wordQuantity(toks []token, i int, used []bool) *quantity {
 	}
 	// "half", "a half", "half as", "half the rate".
 	if w == "half" {
+		// "half a minute", "half an hour": a half of one unit.
+		if (next == "a" || next == "an") && (unitNouns[low(toks, i+2)] || unitNouns[low(toks, i+2)+"s"] || low(toks, i+2) == "point") {
+			u := uNone
+			if low(toks, i+2) == "point" {
+				u = uPoints
+			}
+			q := mk(0.5, u, i+3)
+			q.half, q.word = 0.05, false // a measurement, read within a tenth
+			q.noun = low(toks, i+2)
+			return q
+		}
+		// "fell by half": a relative change of 50%.
+		if prev == "by" && next != "as" && next != "-" && next != "an" && next != "a" && !unitNouns[next+"s"] {
+			return mk(50, uPercent, i+1)
+		}
 		switch prev {
 		case "first", "second", "last", "latter", "former", "other", "in", "by", "and":
 			if prev != "by" || next != "as" {
@@ -559,7 +710,21 @@ func wordQuantity(toks []token, i int, used []bool) *quantity {
 		if next == "-" || next == "an" || next == "hour" || next == "year" || next == "day" || next == "term" || next == "time" {
 			return nil
 		}
+		// "half as long again", "half as much time again", "half again as
+		// much": one and a half times.
+		if next == "again" && low(toks, i+2) == "as" {
+			q := mk(1.5, uTimes, i+2)
+			return q
+		}
 		if next == "as" {
+			for k := i + 3; k <= i+5 && k < len(toks); k++ {
+				if toks[k].kind != tWord {
+					break
+				}
+				if toks[k].low == "again" {
+					return mk(1.5, uTimes, k+1)
+				}
+			}
 			q := mk(0.5, uTimes, i+1)
 			q.multiple = "half"
 			return q
@@ -580,10 +745,25 @@ func wordQuantity(toks []token, i int, used []bool) *quantity {
 	if w == "a" {
 		if den, ok := fractionWords[next]; ok && den > 2 {
 			after := low(toks, i+2)
+			// "a third of a point": a fraction of one unit.
+			if n4 := low(toks, i+4); after == "of" && (low(toks, i+3) == "a" || low(toks, i+3) == "an") && (n4 == "point" || unitNouns[n4] || unitNouns[n4+"s"]) {
+				u := uNone
+				if low(toks, i+4) == "point" {
+					u = uPoints
+				}
+				q := mk(1/den, u, i+5)
+				q.half, q.word = 0.1/den, false // a measurement, read within a tenth
+				q.noun = n4
+				return q
+			}
 			if after == "of" {
 				q := mk(100/den, uPercent, i+2)
 				q.share = true
 				return q
+			}
+			// "fell by a third", "a quarter higher": a relative change.
+			if prev == "by" || changeNouns[after] {
+				return mk(100/den, uPercent, i+2)
 			}
 			if after == "as" {
 				q := mk(1/den, uTimes, i+2)
@@ -672,7 +852,8 @@ func classify(toks []token, i int, q *quantity, first bool) {
 	// Names and codes: "Store 12", "week 3", "#4", "Route 7".
 	if p > 0 && toks[p-1].kind == tWord && !t.pct && q.unit == uNone && t.cur == "" {
 		pw := toks[p-1]
-		if idNouns[pw.low] {
+		// "Table 2.1" is a name; "rated their visit 4.4" is a score.
+		if idNouns[pw.low] && (t.dec == 0 || docNouns[pw.low]) {
 			q.skip = "id"
 			return
 		}
@@ -689,6 +870,18 @@ func classify(toks []token, i int, q *quantity, first bool) {
 	if prev == "per" || (prev == "of" && low(toks, p-2) == "out") {
 		q.skip = "denominator"
 		return
+	}
+	// "164 of the 480 deliveries", "13 of the 14 trained ones": the second
+	// figure counts the cases the first is a part of.
+	if bare && t.dec == 0 {
+		k := p - 1
+		if low(toks, k) == "the" || low(toks, k) == "all" {
+			k--
+		}
+		if low(toks, k) == "of" && k > 0 && toks[k-1].kind == tNum && toks[k-1].dec == 0 && !toks[k-1].pct && toks[k-1].val < t.val {
+			q.stat = "n"
+			return
+		}
 	}
 	// "[1]", "(2)": a reference or list mark.
 	if (prev == "[" && next == "]") || (prev == "(" && next == ")" && bare && t.val < 100 && t.dec == 0) {
@@ -712,6 +905,12 @@ func classify(toks []token, i int, q *quantity, first bool) {
 		q.skip = "level"
 		return
 	}
+	// "ordered again within 30 days", "left within 8 minutes of the
+	// timetable": a window that defines what was counted, not a claim.
+	if prev == "within" && q.unit == uNone && timeUnits[next] != "" {
+		q.skip = "window"
+		return
+	}
 	// Hedges.
 	if h, k := hedgeBefore(toks, p); k < p && (q.hedge == hNone || h == hAbout) {
 		q.hedge = h
@@ -722,6 +921,11 @@ func classify(toks []token, i int, q *quantity, first bool) {
 		q.hedge = h
 		q.hedgeText = joinLow(toks, q.tokEnd, q.tokEnd+n)
 		q.end = toks[q.tokEnd+n-1].end
+	} else if h, n := hedgeAfterAt(toks, q.tokEnd+1); n > 0 && q.hedge == hNone && q.tokEnd < len(toks) && toks[q.tokEnd].kind == tWord &&
+		!stopWords[next] {
+		// "40 kg or more", "15 hours or more".
+		q.hedge = h
+		q.hedgeText = joinLow(toks, q.tokEnd+1, q.tokEnd+1+n)
 	}
 	switch prev {
 	case "from":
@@ -936,15 +1140,15 @@ func finish(toks []token, q *quantity) {
 			break
 		}
 	}
-	if q.change || q.skip != "" {
-		return
-	}
 	// The first token of the claim (its hedge, label or currency sign).
 	p := q.tok
 	for p > 0 && toks[p-1].start >= q.start {
 		p--
 	}
 	q.first = p
+	if q.change || q.skip != "" {
+		return
+	}
 	// Before: "rose 5%", "up by 5 points", "a difference of 5".
 	k := p - 1
 	by := false
@@ -961,10 +1165,22 @@ func finish(toks []token, q *quantity) {
 	// "raised uptake by 21%", "cut waiting times by 4 minutes": the verb
 	// stands before its object.
 	if by && k >= 0 && !changeLead[toks[k].low] {
+		found := false
 		for m := k - 1; m >= 0 && m >= k-4 && (toks[m].kind == tWord || toks[m].text == "-"); m-- {
 			if changeLead[toks[m].low] {
 				k = m
+				found = true
 				break
+			}
+		}
+		// "did better than the 18 to 39 group by 7 points": the comparison
+		// stands before its object, numbers and all.
+		for m := k - 1; !found && m >= 0 && !strings.Contains(",;:()", toks[m].text); m-- {
+			if toks[m].kind == tWord && (comparatives[toks[m].low] || toks[m].low == "better" || toks[m].low == "worse" ||
+				toks[m].low == "beat" || toks[m].low == "beats" || toks[m].low == "led" || toks[m].low == "leads" ||
+				(strings.HasPrefix(toks[m].low, "out") && (strings.HasSuffix(toks[m].low, "ed") || strings.HasSuffix(toks[m].low, "old")) && len(toks[m].low) > 6)) {
+				q.change = true
+				return
 			}
 		}
 	}

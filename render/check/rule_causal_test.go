@@ -50,5 +50,68 @@ func TestCausal(t *testing.T) {
 			{text: "The effect of tutoring on scores was 6.2 points.", blocks: sc, design: "randomized"},
 			{text: "Tutoring led to higher scores.", blocks: sc, design: "randomized"},
 		}...)
+	flag = append(flag, cs(in(ctxMentor),
+		"Mentoring keeps members singing.",
+		"A mentor gets new members through the first year.",
+		"Mentors keep new members loyal.",
+		"Members stay longer because they have someone to ask.",
+		"The mentoring effect is large (15 points).",
+	)...)
+	flag = append(flag, cs(in(ctxVisits),
+		"Visits determine how much customers spend.",
+		"Frequent visits cut waste at the till.",
+	)...)
+	flag = append(flag, cs(in(ctxBooked),
+		"Booking at the counter doubled turn-up rates for first-time visitors.",
+	)...)
+	clean = append(clean, cs(in(ctxMentor),
+		"Mentored members stayed more often, perhaps because keener singers ask for a mentor.",
+		"The choir kept records for all 200 members.",
+		"Because the survey ran in May, late joiners are missing.",
+		"The effect size is moderate (15 points, p = 0.03).",
+		"Members kept their places in the choir more often with a mentor.",
+	)...)
+	clean = append(clean, cs(in(ctxLagoon),
+		"North cut its waiting list by a third over the spring.",
+		"The staff turned up on time every day.",
+	)...)
 	tableTest(t, "causal", flag, clean)
+}
+
+// TestCausalSummary reads a sentence of a section without blocks (a list
+// of key points before the analyses) against the blocks whose columns and
+// groups it names: its words are judged, its figures are not.
+func TestCausalSummary(t *testing.T) {
+	run := func(text string, section int) []Finding {
+		in := input(text, ctxMentor)
+		in.Blocks[0].Section = 2
+		in.Units[0].Section, in.Units[0].Prev = section, ""
+		var out []Finding
+		for _, f := range Run(in) {
+			out = append(out, f)
+		}
+		return out
+	}
+	for _, c := range []struct {
+		text    string
+		section int
+		rule    string // "" for no finding at all
+	}{
+		{"Mentoring clearly keeps new members in the choir.", 1, "causal"},
+		{"A mentor makes members stay.", 1, "causal"},
+		{"Mentored members stayed more often than the others.", 1, ""},
+		{"Mentored members stayed at 95%.", 1, ""},
+		{"Mentoring keeps new members in the choir.", 0, ""},
+	} {
+		fs := run(c.text, c.section)
+		got := ""
+		for _, f := range fs {
+			if got == "" || f.Rule == c.rule {
+				got = f.Rule
+			}
+		}
+		if got != c.rule {
+			t.Errorf("%q (section %d): got finding %q, want %q (%v)", c.text, c.section, got, c.rule, fs)
+		}
+	}
 }

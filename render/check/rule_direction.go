@@ -14,9 +14,15 @@ var directionRule = &Rule{
 		`time points the sentence names, per group when it names one) and against the sentence's own "from X to Y"; comparatives ` +
 		`("higher", "lower", "more", "fewer", "outperformed") with "than" against the two groups, levels or time points named on ` +
 		`either side; and the sign of a correlation or slope ("positively related", "as X rose, Y fell", "the more X, the more Y") ` +
-		`against r or the coefficient. A negated word ("did not rise") is not read; a comparison of a binary outcome in the words of ` +
-		`its opposite ("late more often" for an on-time share) is turned round. Severity error; a correlation's sign whose 95% ` +
-		`interval reaches the claimed side is a warning.`,
+		`against r or the coefficient. A comparative without "than" reads the group after a preposition against the other of two ` +
+		`("lower with reminders"); a change word with "compared with", "relative to" or "than" compares two groups ("rose in the ` +
+		`pilot zones compared with the meter zones"), in a trend of two groups by their changes (the difference in differences: ` +
+		`"improved by 0.12 points more"). "In every month", "week after week" need every step to go that way; "peaked in July" and ` +
+		`"bottomed out in December" need the named time point to hold the highest or lowest value. "Improved" and "worsened" are ` +
+		`read as a rise or a fall from the measure's name (ratings, punctuality: up is better; delays, waste: down is better). A ` +
+		`negated word ("did not rise") is not read; a comparison of a binary outcome in the words of its opposite ("late more ` +
+		`often", "unhealthy" for a healthy share) is turned round. Severity error; a correlation's sign whose 95% interval reaches ` +
+		`the claimed side is a warning.`,
 	Check: checkDirection,
 }
 
@@ -52,6 +58,14 @@ func (p *Pass) directionWords() []dirWord {
 		}
 		next := low(s.toks, i+1)
 		prev := low(s.toks, i-1)
+		// "falls just short of significance": an idiom, not a fall; "a
+		// drop-off", "a check-up": a compound noun.
+		if next == "short" || (next == "just" || next == "well" || next == "far") && low(s.toks, i+2) == "short" {
+			continue
+		}
+		if next == "-" && i+2 < len(s.toks) && attached(s.toks, i+1) && attached(s.toks, i+2) {
+			continue
+		}
 		switch t.low {
 		case "up", "down":
 			if !(i+1 < len(s.toks) && s.toks[i+1].kind == tNum || next == "by" || next == "from" || next == "on" || next == "to" ||
@@ -69,6 +83,10 @@ func (p *Pass) directionWords() []dirWord {
 				continue
 			}
 		}
+		// "turned up 6% less often", "signed up": a phrasal verb.
+		if (t.low == "up" || t.low == "down") && phrasalUp[prev] {
+			continue
+		}
 		kind := "compare"
 		if changeVerbs[t.low] {
 			kind = "change"
@@ -76,7 +94,7 @@ func (p *Pass) directionWords() []dirWord {
 		if t.low == "more" || t.low == "less" {
 			// "more" alone is too common ("more members", "more detail");
 			// read it only in a comparison with "than" or "likely/often".
-			if !(s.has("than") || next == "likely" || next == "often") {
+			if !(s.has("than") || likelyWords[next]) {
 				continue
 			}
 		}
@@ -88,11 +106,32 @@ func (p *Pass) directionWords() []dirWord {
 func checkDirection(p *Pass) []Finding {
 	s := p.s
 	ws := p.directionWords()
+	if f, ok := p.extremumClaim(); ok {
+		return []Finding{f}
+	}
+	if f, ok := p.superlativeClaim(); ok {
+		return []Finding{f}
+	}
 	if corr := p.correlationDirection(ws); corr != nil {
 		return []Finding{*corr}
 	}
+	// "improved", "worsened": a direction only once the measure says
+	// whether more is better.
+	ws = append(ws, p.improvementWords()...)
 	if len(ws) == 0 {
 		return nil
+	}
+	conn, every := p.contrastAt(), p.saysEvery()
+	for _, w := range ws {
+		if w.kind != "change" {
+			continue
+		}
+		if f, ok := p.contrastDirection(w, conn); ok {
+			return []Finding{f}
+		}
+		if f, ok := p.everyStep(w, every); ok {
+			return []Finding{f}
+		}
 	}
 	var out []Finding
 	mixed := false
@@ -156,7 +195,10 @@ func verb(sign int, w string) string {
 		"doubled": "fell", "halved": "rose", "improved": "worsened", "outperformed": "trailed", "trailed": "outperformed",
 		"growth": "decline", "decline": "growth", "rising": "falling", "falling": "rising", "increasing": "decreasing",
 		"decreasing": "increasing", "growing": "shrinking", "declining": "rising", "surged": "fell", "soared": "fell",
-		"plunged": "rose", "slipped": "rose", "dipped": "rose", "exceeded": "trailed"}
+		"plunged": "rose", "slipped": "rose", "dipped": "rose", "exceeded": "trailed", "rarer": "more common",
+		"commoner": "rarer", "scarcer": "more common", "ahead": "behind", "behind": "ahead", "heavier": "lighter",
+		"lighter": "heavier", "busier": "quieter", "quieter": "busier", "warmer": "colder", "colder": "warmer",
+		"cheaper": "dearer", "dearer": "cheaper"}
 	if o, ok := pairs[w]; ok {
 		return o
 	}
@@ -275,6 +317,10 @@ func (p *Pass) compareDirection(w dirWord) (Finding, bool) {
 			break
 		}
 	}
+	// "Fordham was 1 point ahead of Elm Parade", "fell behind the others".
+	if w0 := s.toks[w.i].low; (w0 == "ahead" || w0 == "behind") && low(s.toks, w.i+1) == "of" {
+		than = w.i + 1
+	}
 	verbForm := strings.HasSuffix(s.toks[w.i].low, "ed") // outperformed, trailed, exceeded
 	for _, sc := range p.scope {
 		if sc.score < 1 {
@@ -290,26 +336,38 @@ func (p *Pass) compareDirection(w dirWord) (Finding, bool) {
 		if pivot < 0 {
 			// "Annual members were more likely to renew": one named group of
 			// two, against the other.
+			// "On-time refills were lower with reminders": the group after a
+			// preposition, against the other.
 			next := low(s.toks, w.i+1)
-			if next != "likely" && next != "often" {
-				continue
-			}
 			gs := bi.dim("group")
 			if len(gs) != 2 {
 				continue
 			}
 			var named *mention
+			distinct := 0
 			for k := range ms {
-				if ms[k].l.dim == "group" && ms[k].a < w.i {
-					if named != nil && named.l != ms[k].l {
-						named = nil
-						break
-					}
+				if ms[k].l.dim != "group" {
+					continue
+				}
+				if named == nil || named.l != ms[k].l {
+					distinct++
+				}
+				if named == nil {
 					named = &ms[k]
 				}
 			}
-			if named == nil {
+			if named == nil || distinct != 1 {
 				continue
+			}
+			pre := named.a - 1
+			for pre > w.i && determiners[s.toks[pre].low] {
+				pre-- // "with a mentor"
+			}
+			after := named.a > w.i && pre > w.i && prepositions[s.toks[pre].low] && named.a-w.i <= 5
+			if !likelyWords[next] || named.a > w.i {
+				if !after || p.namesTime() || w.kind != "compare" {
+					continue
+				}
 			}
 			other := gs[0]
 			if other == named.l {
@@ -343,7 +401,7 @@ func (p *Pass) compareDirection(w dirWord) (Finding, bool) {
 		// "South runs were late more often": the other outcome than the
 		// block's success, so the comparison turns round.
 		sign := w.sign
-		if bi.measureStat() == "pct" && (bi.analysis == "compare" || bi.analysis == "trend") && !p.namesOutcome(bi) && s.has(oppositeOutcome...) {
+		if bi.measureStat() == "pct" && (bi.analysis == "compare" || bi.analysis == "trend") && !p.namesOutcome(bi) && p.saysOpposite(bi) {
 			sign = -sign
 		}
 		d := va.val() - vb.val()
@@ -358,7 +416,7 @@ func (p *Pass) compareDirection(w dirWord) (Finding, bool) {
 			return Finding{}, false
 		}
 		return p.atTok(Error, w.i, w.i+1, bi, "says %s but the %s for %s is %s against %s for %s; try %s",
-			quote(s.toks[w.i].text), what, a.l.text, showF(va), showF(vb), b.l.text, quote(verb(w.sign, s.toks[w.i].low))), true
+			quote(s.toks[w.i].text), what, a.l.name(), showF(va), showF(vb), b.l.name(), quote(verb(w.sign, s.toks[w.i].low))), true
 	}
 	return Finding{}, false
 }
@@ -668,4 +726,495 @@ func (p *Pass) correlationWords() []dirWord {
 		out = append(out, dirWord{i: i, sign: d})
 	}
 	return out
+}
+
+// extremeWords say a series reached its highest (+1) or lowest (-1) point
+// at a time ("peaked in July", "bottomed out in December").
+var extremeWords = map[string]int{"peaked": 1, "peaks": 1, "peaking": 1, "bottomed": -1, "bottoms": -1, "troughed": -1}
+
+// extremumClaim judges "peaked in July" against the trend: the time point
+// named must hold the series' highest value (lowest for "bottomed out").
+func (p *Pass) extremumClaim() (Finding, bool) {
+	s := p.s
+	for i, t := range s.toks {
+		sign, ok := extremeWords[t.low]
+		if !ok || s.negated(i) {
+			continue
+		}
+		for _, sc := range p.scope {
+			bi := sc.bi
+			if bi.analysis != "trend" || sc.score < 1 {
+				continue
+			}
+			var at *label
+			var group *label
+			for _, m := range s.mentionsOf(bi) {
+				if m.l.dim == "time" && m.a > i && m.a <= i+8 && s.clause[m.a] == s.clause[i] && at == nil {
+					at = m.l
+				}
+				if m.l.dim == "group" && m.a < i {
+					group = m.l
+				}
+			}
+			if at == nil {
+				continue
+			}
+			groups := bi.dim("group")
+			if len(groups) > 0 && group == nil {
+				if len(groups) != 1 {
+					continue
+				}
+				group = groups[0]
+			}
+			stat := bi.measureStat()
+			get := func(tl *label) *factInfo {
+				name := tl.slug + "." + stat
+				if group != nil {
+					name = group.slug + "." + name
+				}
+				return bi.fact(name)
+			}
+			claimed := get(at)
+			if claimed == nil {
+				continue
+			}
+			var best *factInfo
+			var bestT *label
+			for _, tl := range bi.dim("time") {
+				f := get(tl)
+				if f == nil {
+					continue
+				}
+				if best == nil || float64(sign)*(f.val()-best.val()) > 0 {
+					best, bestT = f, tl
+				}
+			}
+			if best == nil || bestT == at || blocks.Format(best.fact, -1) == blocks.Format(claimed.fact, -1) {
+				return Finding{}, false
+			}
+			word := "highest"
+			if sign < 0 {
+				word = "lowest"
+			}
+			who := ""
+			if group != nil {
+				who = " for " + group.name()
+			}
+			return p.atTok(Error, i, i+1, bi, "says %s in %s but the %s %s%s is %s in %s (%s in %s); try %s",
+				quote(t.text), at.text, word, statNames[stat], who, showF(best), bestT.text, showF(claimed), at.text,
+				quote(map[int]string{1: "peaked in ", -1: "bottomed out in "}[sign]+bestT.text)), true
+		}
+	}
+	return Finding{}, false
+}
+
+// namesTime reports whether the sentence names a time point of a block in
+// scope (then a comparative may compare times, not groups).
+func (p *Pass) namesTime() bool {
+	for _, sc := range p.scope {
+		for _, m := range p.s.mentionsOf(sc.bi) {
+			if m.l.dim == "time" {
+				return true
+			}
+		}
+	}
+	return false
+}
+
+// improveWords say a measure got better (+1) or worse (-1).
+var improveWords = map[string]int{"improved": 1, "improve": 1, "improves": 1, "improving": 1, "improvement": 1,
+	"worsened": -1, "worsen": -1, "worsens": -1, "worsening": -1, "deteriorated": -1, "deteriorating": -1}
+
+// Words of a column's name that say whether a higher value is better (+1)
+// or worse (-1), for reading "improved".
+var (
+	goodHigh = set("rating ratings score scores satisfaction satisfied sales takings revenue income profit retained retention " +
+		"renewed renewal resolved resolution ontime punctual punctuality attended attendance passed pass success uptake " +
+		"completed completion recycled reuse visits visitors riders")
+	badHigh = set("delay delays late lateness wait waits waiting waste overstay overstayed complaint complaints error errors " +
+		"defect defects missed miss churn churned absence absences noshow injuries injury cost costs")
+)
+
+// valence says whether a higher value of the block's measure is better
+// (+1), worse (-1) or neither that the checker can tell (0).
+func valence(bi *blockInfo) int {
+	if len(bi.meta.Columns) == 0 {
+		return 0
+	}
+	col := strings.ToLower(bi.meta.Columns[0])
+	joinedCol := strings.NewReplacer("_", "", "-", "", " ", "").Replace(col)
+	if goodHigh[joinedCol] {
+		return 1
+	}
+	if badHigh[joinedCol] {
+		return -1
+	}
+	v := 0
+	for _, w := range splitWords(col) {
+		switch {
+		case goodHigh[w]:
+			v = 1
+		case badHigh[w]:
+			return -1
+		}
+	}
+	return v
+}
+
+// improvementWords are "improved" and the like read as a rise or a fall of
+// the best-tied block's measure.
+func (p *Pass) improvementWords() []dirWord {
+	s := p.s
+	var out []dirWord
+	for i, t := range s.toks {
+		d, ok := improveWords[t.low]
+		if !ok || s.negated(i) {
+			continue
+		}
+		sc := p.best(1, func(bi *blockInfo) bool { return valence(bi) != 0 })
+		if sc == nil {
+			continue
+		}
+		out = append(out, dirWord{i: i, sign: d * valence(sc.bi), kind: "change"})
+	}
+	return out
+}
+
+// contrastWords link two groups whose change is compared ("compared with
+// the meter zones", "relative to North Sound").
+var contrastPhrases = []string{"compared with", "compared to", "relative to", "in comparison with", "as against", "than", "versus", "vs"}
+
+// contrastDirection judges a change word that compares two groups: in a
+// trend of two groups, "A rose more than B" and "compared with B, A
+// improved by 0.12 points more" against the difference in differences; in a
+// comparison, "overstays rose in the pilot zones compared with the meter
+// zones" against the two groups' values.
+func (p *Pass) contrastDirection(w dirWord, conn int) (Finding, bool) {
+	s := p.s
+	if conn < 0 {
+		return Finding{}, false
+	}
+	for _, sc := range p.scope {
+		bi := sc.bi
+		if sc.score < 1 {
+			continue
+		}
+		groups := bi.dim("group")
+		if len(groups) < 2 {
+			continue
+		}
+		var base, other *label
+		for _, m := range s.mentionsOf(bi) {
+			if m.l.dim != "group" {
+				continue
+			}
+			if base == nil && m.a >= conn && m.a <= conn+3 {
+				base = m.l
+			}
+		}
+		for _, m := range s.mentionsOf(bi) {
+			if m.l.dim == "group" && m.l != base && other == nil {
+				other = m.l
+			}
+		}
+		// "compared with non-users", "than the others": the other group of
+		// two.
+		if base == nil && other != nil && len(groups) == 2 {
+			for k := conn; k < len(s.toks) && k <= conn+2; k++ {
+				switch s.toks[k].low {
+				case "non", "others", "rest", "everyone", "everybody":
+					base = groups[0]
+					if base == other {
+						base = groups[1]
+					}
+				}
+			}
+		}
+		if base == nil || other == nil {
+			continue
+		}
+		switch bi.analysis {
+		case "trend":
+			if p.namesTime() && !s.has("more", "less", "faster", "slower") {
+				continue
+			}
+			claimed := w.sign
+			switch {
+			case s.has("less", "slower") && !s.has("more", "faster"):
+				claimed = -w.sign
+			case s.has("more", "faster"):
+			default:
+				continue // "A rose, compared with B's fall": two changes, each its own
+			}
+			ca, cb := bi.fact(other.slug+".change"), bi.fact(base.slug+".change")
+			if ca == nil || cb == nil {
+				continue
+			}
+			d := ca.val() - cb.val()
+			got := 0
+			if d > 0 {
+				got = 1
+			} else if d < 0 {
+				got = -1
+			}
+			if got == 0 || got == claimed {
+				return Finding{}, false
+			}
+			dk := ca.fact.Kind
+			return p.atTok(Error, w.i, w.i+1, bi, "says %s by more for %s than for %s, but %s changed by %s and %s by %s, a difference in differences of %s; try %s",
+				quote(s.toks[w.i].text), other.name(), base.name(), other.name(), signed(ca.val(), dk), base.name(), signed(cb.val(), dk),
+				signed(d, dk), quote(s.toks[w.i].text+" "+map[bool]string{true: "more", false: "less"}[got*w.sign > 0]+" for "+other.name())), true
+		case "compare", "summary":
+			va, vb, what := p.valuesOf(bi, other, base)
+			if va == nil || vb == nil {
+				continue
+			}
+			d := va.val() - vb.val()
+			if d == 0 || blocks.Format(va.fact, -1) == blocks.Format(vb.fact, -1) {
+				return Finding{}, false
+			}
+			got := 1
+			if d < 0 {
+				got = -1
+			}
+			if got == w.sign {
+				return Finding{}, false
+			}
+			return p.atTok(Error, w.i, w.i+1, bi, "says %s for %s compared with %s but the %s for %s is %s against %s for %s; try %s",
+				quote(s.toks[w.i].text), other.name(), base.name(), what, other.name(), showF(va), showF(vb), base.name(),
+				quote(verb(w.sign, s.toks[w.i].low))), true
+		}
+	}
+	return Finding{}, false
+}
+
+// contrastAt returns the token after the sentence's first phrase that sets
+// two groups against each other ("compared with", "than"), or -1; one
+// inside a compound ("mixed-versus-cold") does not count.
+func (p *Pass) contrastAt() int {
+	s := p.s
+	for _, ph := range contrastPhrases {
+		if a, b, ok := s.hasPhrase(ph); ok && !(a > 0 && s.toks[a-1].text == "-" && !s.toks[a].space) {
+			return b
+		}
+	}
+	return -1
+}
+
+// saysEvery reports whether the sentence claims a change at every step
+// ("in every month", "week after week").
+func (p *Pass) saysEvery() bool {
+	s := p.s
+	every := false
+	for i := range s.toks {
+		if (s.toks[i].low == "every" || s.toks[i].low == "each") && i+1 < len(s.toks) {
+			n := low(s.toks, i+1)
+			if n == "single" {
+				n = low(s.toks, i+2)
+			}
+			switch n {
+			case "month", "week", "day", "year", "quarter", "term", "period", "wave", "round", "season":
+				every = true
+			}
+		}
+	}
+	for _, ph := range []string{"month after month", "week after week", "year after year", "quarter after quarter", "without a break", "consecutive"} {
+		if _, _, ok := s.hasPhrase(ph); ok {
+			every = true
+		}
+	}
+	return every
+}
+
+// everyStep judges "rose in every month", "fell week after week": each
+// step of the trend must go the way the word says.
+func (p *Pass) everyStep(w dirWord, every bool) (Finding, bool) {
+	s := p.s
+	if !every {
+		return Finding{}, false
+	}
+	for _, sc := range p.scope {
+		bi := sc.bi
+		if bi.analysis != "trend" || sc.score < 1 {
+			continue
+		}
+		times := bi.dim("time")
+		if len(times) < 3 {
+			continue
+		}
+		// The group of the word's own clause ("North's hires rose every
+		// month, and South's rose month after month"), else the one named.
+		var group *label
+		for _, m := range s.mentionsOf(bi) {
+			if m.l.dim != "group" {
+				continue
+			}
+			if group == nil || (m.a < w.i && s.clause[m.a] == s.clause[w.i]) {
+				group = m.l
+			}
+		}
+		if len(bi.dim("group")) > 0 && group == nil {
+			continue
+		}
+		stat := bi.measureStat()
+		get := func(t *label) *factInfo {
+			name := t.slug + "." + stat
+			if group != nil {
+				name = group.slug + "." + name
+			}
+			return bi.fact(name)
+		}
+		for k := 1; k < len(times); k++ {
+			a, b := get(times[k-1]), get(times[k])
+			if a == nil || b == nil {
+				break
+			}
+			d := b.val() - a.val()
+			got := 0
+			if blocks.Format(a.fact, -1) != blocks.Format(b.fact, -1) {
+				if d > 0 {
+					got = 1
+				} else if d < 0 {
+					got = -1
+				}
+			}
+			if got != w.sign {
+				return p.atTok(Error, w.i, w.i+1, bi, "says %s at every step but from %s to %s it went from %s to %s; try %s",
+					quote(s.toks[w.i].text), times[k-1].text, times[k].text, showF(a), showF(b), quote(s.toks[w.i].text+" overall")), true
+			}
+		}
+		return Finding{}, false
+	}
+	return Finding{}, false
+}
+
+// likelyWords after "more" or "less" make a comparison of how often ("less
+// often", "more common").
+var likelyWords = set("likely often common commonly frequent frequently usual")
+
+// phrasalUp are the verbs of "turned up", "signed up", "set up": no rise.
+var phrasalUp = set("turned turn turns turning showed show shows showing signed sign signs set sets follow " +
+	"followed broken break broke backed back")
+
+// superlatives say a group holds the highest (+1) or lowest (-1) value of
+// the block's measure: "Hill Street had the largest baskets", "the lowest
+// on-time rate was Fordham's".
+var superlatives = map[string]int{"highest": 1, "largest": 1, "biggest": 1, "greatest": 1, "most": 1, "longest": 1,
+	"lowest": -1, "smallest": -1, "least": -1, "fewest": -1, "shortest": -1}
+
+// superlativeClaim judges "GROUP had the highest X" against the groups (or
+// a frequency's levels) of the best-tied block: the named one must hold the
+// highest value (lowest for "lowest"), after honest rounding.
+func (p *Pass) superlativeClaim() (Finding, bool) {
+	s := p.s
+	for i, t := range s.toks {
+		sign, ok := superlatives[t.low]
+		if !ok || i == 0 || s.toks[i-1].low != "the" || s.negated(i) {
+			continue
+		}
+		// "the second highest", "at the most": not a claim of the top.
+		if i >= 2 && (ordinalWords[s.toks[i-2].low] || s.toks[i-2].low == "at") {
+			continue
+		}
+		if t.low == "most" || t.low == "least" {
+			// "the most common", "the most", but not "the most likely to".
+			if n := low(s.toks, i+1); n == "likely" || n == "often" {
+				continue
+			}
+		}
+		for _, sc := range p.scope {
+			bi := sc.bi
+			if sc.score < 1 {
+				continue
+			}
+			dim := "group"
+			switch bi.analysis {
+			case "frequency":
+				dim = "level"
+			case "summary", "compare":
+			default:
+				continue
+			}
+			ls := bi.dim(dim)
+			if len(ls) < 3 {
+				continue // two groups: a comparison, the comparative's
+			}
+			var named *label
+			for _, m := range s.mentionsOf(bi) {
+				if m.l.dim != dim || m.partial {
+					continue
+				}
+				// The group is the subject ("Hill Street had the largest"), or
+				// comes after the superlative's noun ("the highest rate was
+				// at Fordham"); not an apposition set off by commas.
+				before := m.b <= i && s.clause[m.a] == s.clause[i] && i-m.b <= 4
+				after := m.a > i+1 && m.a-i <= 6 && s.clause[m.a] == s.clause[i] && linkBefore(s, i+1, m.a)
+				if !before && !after {
+					continue
+				}
+				if named != nil && named != m.l {
+					named = nil
+					break
+				}
+				named = m.l
+			}
+			if named == nil {
+				continue
+			}
+			stat := bi.measureStat()
+			if bi.analysis == "frequency" {
+				stat = "pct"
+			}
+			if s.has("median", "typical") && bi.fact(named.slug+".median") != nil {
+				stat = "median"
+			}
+			claimed := bi.fact(named.slug + "." + stat)
+			if claimed == nil {
+				continue
+			}
+			var top *factInfo
+			var topL *label
+			for _, l := range ls {
+				if nullLevels[strings.ToLower(l.text)] {
+					continue // "the most common complaint" is not "None"
+				}
+				f := bi.fact(l.slug + "." + stat)
+				if f == nil {
+					return Finding{}, false
+				}
+				if top == nil || float64(sign)*(f.val()-top.val()) > 0 {
+					top, topL = f, l
+				}
+			}
+			if topL == named || blocks.Format(top.fact, -1) == blocks.Format(claimed.fact, -1) {
+				return Finding{}, false
+			}
+			word := "highest"
+			if sign < 0 {
+				word = "lowest"
+			}
+			return p.atTok(Error, i, i+1, bi, "says %s has %s but the %s %s is %s's, %s (%s has %s); try %s",
+				named.name(), quote("the "+t.text), word, statNames[stat], topL.name(), showF(top), named.name(), showF(claimed),
+				quote(topL.name()+" had the "+t.text)), true
+		}
+	}
+	return Finding{}, false
+}
+
+// ordinalWords before a superlative rank it below the top.
+var ordinalWords = set("second third fourth fifth next")
+
+// nullLevels are levels that are no kind of the thing counted.
+var nullLevels = set("none no nothing other others unknown n/a na missing")
+
+// linkBefore reports whether a verb or preposition stands between a
+// superlative's noun and the group after it ("the highest rate was at
+// Fordham"), so that the group is not the noun itself ("the largest group").
+func linkBefore(s *sentence, a, b int) bool {
+	for k := a; k < b; k++ {
+		if copulas[s.toks[k].low] || prepositions[s.toks[k].low] {
+			return true
+		}
+	}
+	return false
 }

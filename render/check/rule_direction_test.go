@@ -56,5 +56,48 @@ func TestDirection(t *testing.T) {
 			"The correlation between distance and attendance was negative.",
 			"Pupils who lived further away attended less.",
 		)...)
+	flag = append(flag, cs(in(ctxMentor),
+		"Staying was rarer with a mentor.",
+		"Members stayed less often with a mentor.",
+	)...)
+	flag = append(flag, cs(in(ctxLagoon),
+		"South's hires grew more than North's over the spring.",
+		"North's hires rose every month, and South's rose month after month.",
+		"North's hires peaked in March.",
+		"Compared with North, South gained more hires a day.",
+	)...)
+	flag = append(flag, cs(in(ctxMeals),
+		"Leftovers rose on mixed evenings compared with hot evenings.",
+	)...)
+	clean = append(clean, cs(in(ctxMentor),
+		"Staying was more common with a mentor.",
+		"Members stayed more often with a mentor.",
+	)...)
+	clean = append(clean, cs(in(ctxLagoon),
+		"North's hires grew more than South's over the spring.",
+		"North's hires rose in every month.",
+		"North's hires peaked in April.",
+		"South's hires bottomed out in February.",
+		"The gap between the lagoons falls just short of significance.",
+	)...)
+	clean = append(clean, cs(in(ctxMeals),
+		"Leftovers rose on hot evenings compared with cold evenings.",
+	)...)
+	flag = append(flag, cs(in(ctxMeals),
+		"Mixed menus left the most food.",
+	)...)
+	flag = append(flag, cs(in(ctxBooked),
+		"Phone bookers had the highest turn-up rate.",
+		"Phone bookers finished ahead of online bookers.",
+	)...)
+	clean = append(clean, cs(in(ctxMeals),
+		"Hot menus left the most food.",
+		"Cold menus left the least.",
+	)...)
+	clean = append(clean, cs(in(ctxBooked),
+		"Counter bookers had the highest turn-up rate.",
+		"The lowest turn-up rate was among phone bookers.",
+		"Phone bookers were 6 points behind online bookers.",
+	)...)
 	tableTest(t, "direction", flag, clean)
 }

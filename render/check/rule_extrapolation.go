@@ -1,6 +1,7 @@
 package check
 
 import (
+	"math"
 	"strings"
 )
 
@@ -9,16 +10,20 @@ var extrapolationRule = &Rule{
 	Doc: `extrapolation flags a prediction outside the observed range of the predictor. For a regression block it reads a ` +
 		`predictor value the sentence states beside the predictor's name ("a member with 60 visits would spend") or that a predict: ` +
 		`value shown inline was made at (the fact predict.K.PRED), against the range the fit saw (x_min and x_max, or PRED.min and ` +
-		`PRED.max). For a trend block it reads a forecast ("will reach", "by next year", "is on course to") with a figure, since a ` +
+		`PRED.max). A prediction typed by hand counts too: a figure of a sentence that speaks of a prediction ("would", "expects", ` +
+		`"predicts", "if") equal to one of the block's predictions (judged at its predict.K.PRED), to the intercept said of none of ` +
+		`the predictor ("with no advertising at all"), or to the fitted line at another figure of the sentence ("a 40-degree day ` +
+		`would bring 780 riders"). For a trend block it reads a forecast ("will reach", "by next year", "is on course to") with a figure, since a ` +
 		`trend computes no value past its last time point. Severity warning.`,
 	Check: checkExtrapolation,
 }
 
 var futureWords = set("will would forecast forecasts forecasted projected projection projections predict predicts predicted " +
-	"expect expects expected extrapolate extrapolated anticipate anticipated")
+	"expect expects expected extrapolate extrapolated extrapolating anticipate anticipated")
 
 var futurePhrases = []string{"on course to", "on track to", "set to", "going to", "by next year", "next year", "next quarter",
-	"next month", "next term", "by the end of next", "in the coming", "in future", "in the future"}
+	"next month", "next term", "by the end of next", "in the coming", "in future", "in the future", "at this rate", "on pace to",
+	"if the trend continues", "if the trend holds", "if this continues", "should reach", "is likely to reach"}
 
 func checkExtrapolation(p *Pass) []Finding {
 	s := p.s
@@ -53,6 +58,9 @@ func checkExtrapolation(p *Pass) []Finding {
 					return out
 				}
 			}
+		}
+		if f, ok := p.typedPrediction(bi, future); ok {
+			return append(out, f)
 		}
 		if future < 0 && !s.has("at", "with", "for", "if") {
 			continue
@@ -99,7 +107,8 @@ func checkExtrapolation(p *Pass) []Finding {
 	}
 	var q *quantity
 	for _, o := range s.qs {
-		if o.claim() && o.tok > future && !o.word {
+		// "will reach 250", "will double": a figure or a multiple.
+		if o.claim() && o.tok > future && (!o.word || o.unit == uTimes) {
 			q = o
 			break
 		}
@@ -177,6 +186,130 @@ func (s *sentence) forecastAt() int {
 	for _, ph := range futurePhrases {
 		if a, _, ok := s.hasPhrase(ph); ok {
 			return a
+		}
+	}
+	return -1
+}
+
+// typedPrediction reads a prediction typed by hand: a figure of a sentence
+// that speaks of a prediction ("would", "predicts", "expect", "if") and
+// equals one of the block's predictions (predict.K.estimate, made at the
+// predictor values predict.K.PRED), its intercept said of no predictor at
+// all ("with no advertising at all would still sell about 165"), or, for
+// one predictor, the fitted line at another figure of the sentence ("a
+// 40-degree day would bring 780 riders").
+func (p *Pass) typedPrediction(bi *blockInfo, future int) (Finding, bool) {
+	s := p.s
+	if future < 0 && !s.has("if", "model", "fitted", "fit", "should", "yield", "yields") {
+		return Finding{}, false
+	}
+	preds := bi.dim("pred")
+	outside := func(pred string, x float64) (lo, hi *factInfo, bad bool) {
+		lo, hi = p.rangeOf(bi, pred)
+		if lo == nil || hi == nil {
+			return nil, nil, false
+		}
+		return lo, hi, x < lo.val() || x > hi.val()
+	}
+	report := func(q *quantity, pred string, x float64, lo, hi *factInfo) Finding {
+		name := pred
+		if l := bi.labelOf("pred", pred); l != nil {
+			name = l.text
+		}
+		return p.atQ(Warning, q, bi, "predicts %s at %s = %s, outside the observed range %s–%s; the fit says nothing there; try %s",
+			quote(q.text(s.ut.text)), name, sig3(x), sig3(lo.val()), sig3(hi.val()),
+			quote("within the observed "+sig3(lo.val())+" to "+sig3(hi.val())+" "+name))
+	}
+	for _, q := range s.qs {
+		if !q.claim() || q.ref != "" || q.unit == uPercent || q.unit == uTimes || q.unit == uPoints || q.stat != "" || q.change {
+			continue
+		}
+		// One of the block's own predictions.
+		for k := 1; ; k++ {
+			est := bi.fact("predict." + itoa(k) + ".estimate")
+			if est == nil {
+				break
+			}
+			if !matches(q, est.val()) && !matchesRel(q, est.val()) {
+				continue
+			}
+			for _, pr := range preds {
+				xf := bi.fact("predict." + itoa(k) + "." + pr.slug)
+				if xf == nil {
+					continue
+				}
+				if lo, hi, bad := outside(pr.slug, xf.val()); bad {
+					return report(q, pr.slug, xf.val(), lo, hi), true
+				}
+			}
+			return Finding{}, false
+		}
+		// The intercept, said of none of the predictor.
+		if ic := bi.fact("intercept.estimate"); ic != nil && matches(q, ic.val()) && s.has("no", "zero", "without", "nothing", "never", "none") {
+			for _, pr := range preds {
+				if lo, hi, bad := outside(pr.slug, 0); bad {
+					return report(q, pr.slug, 0, lo, hi), true
+				}
+			}
+			continue
+		}
+		// The fitted line of one predictor at another figure of the sentence.
+		ic := bi.fact("intercept.estimate")
+		if len(preds) != 1 || ic == nil {
+			continue
+		}
+		// "If a store could draw 900 visitors a day it would take about
+		// £19k": the figure before the word of prediction is the
+		// predictor's value, the one after it the outcome's, right or not.
+		if w := s.predictionWordAt(); w > q.tok {
+			continue // q stands before the word; only an outcome after it is read
+		} else if w >= 0 {
+			for _, x := range s.qs {
+				if x == q || x.tok > w || !(x.claim() || x.skip == "compound") || x.unit == uPercent || x.unit == uTimes ||
+					x.unit == uPoints || x.stat != "" || x.change {
+					continue
+				}
+				lo, hi, bad := outside(preds[0].slug, x.val)
+				if !bad || lo == nil {
+					continue
+				}
+				// Within a factor of ten of the observed range: a value of
+				// the predictor, not some other figure.
+				span := math.Max(math.Abs(lo.val()), math.Abs(hi.val()))
+				if math.Abs(x.val) <= 10*span && (x.val >= lo.val()-10*span) {
+					return report(q, preds[0].slug, x.val, lo, hi), true
+				}
+			}
+		}
+		b := bi.fact(preds[0].slug + ".estimate")
+		if b == nil {
+			continue
+		}
+		for _, x := range s.qs {
+			// "a 40-degree day": a compound names the predictor's value.
+			if x == q || !(x.claim() || x.skip == "compound") || x.ref != "" || x.unit == uPercent || x.unit == uTimes || x.stat != "" {
+				continue
+			}
+			y := ic.val() + b.val()*x.val
+			if !matchesRel(q, y) || math.Abs(y) < 1e-9 {
+				continue
+			}
+			if lo, hi, bad := outside(preds[0].slug, x.val); bad {
+				return report(q, preds[0].slug, x.val, lo, hi), true
+			}
+			return Finding{}, false
+		}
+	}
+	return Finding{}, false
+}
+
+// predictionWordAt returns the token of the sentence's word of prediction
+// ("would", "predicts", "expect", "should"), or -1.
+func (s *sentence) predictionWordAt() int {
+	for i, t := range s.toks {
+		switch t.low {
+		case "would", "predicts", "predicted", "predict", "expect", "expects", "expected", "should", "projected", "forecast":
+			return i
 		}
 	}
 	return -1

@@ -39,5 +39,26 @@ func TestExtrapolation(t *testing.T) {
 			"If the fall continues, the library will need fewer copies.",
 			"Members borrowed 4.1 books each in Q4.",
 		)...)
+	flag = append(flag, cs(in(ctxLeaflets),
+		"A 2,000-leaflet drop would bring in about 140 bookings.",
+		"With no leaflets at all the model still expects about 40 bookings.",
+		"Delivering 1,500 leaflets should yield about 115 bookings.",
+		"The model predicts 140 bookings.",
+	)...)
+	clean = append(clean, cs(in(ctxLeaflets),
+		"A 500-leaflet drop would bring in about 65 bookings.",
+		"Delivering 800 leaflets should yield about 80 bookings.",
+		"The model predicts 65 bookings for a typical drop.",
+		"With no extra leaflets bookings would stay where they are.",
+	)...)
+	flag = append(flag, cs(in(ctxLeaflets),
+		"If we delivered 5,000 leaflets we would get 400 bookings.",
+	)...)
+	flag = append(flag, cs(in(ctxLoans),
+		"At this rate loans will double by next spring.",
+	)...)
+	clean = append(clean, cs(in(ctxLeaflets),
+		"If we delivered 700 leaflets we would get about 75 bookings.",
+	)...)
 	tableTest(t, "extrapolation", flag, clean)
 }

@@ -58,7 +58,90 @@ func TestNumber(t *testing.T) {
 		)...),
 		cs(in(ctxVisits), "Spend and visits went together weakly (r = 0.21, 95% CI 0.01–0.39).")...)
 	clean = append(clean, cs(in(ctxSpend), "Each additional visit added $2.10 to spend.")...)
+	// A figure is read against the statistic and group the sentence names,
+	// in the unit it is written in.
+	flag = append(flag, cs(in(ctxStalls),
+		"Harbour averaged £9k a day.",
+		"Harbour took £8.6k on an average day.",
+		"Market's busiest day brought in £11.2k.",
+		"Harbour's takings ranged from £3.1k to £14k a day.",
+		"The Market stall took between £2k and £8k a day.",
+	)...)
+	flag = append(flag, cs(in(ctxCommute),
+		"Over a third of staff travel under 15 minutes.",
+		"One worker in ten takes 30 to 45 minutes.",
+	)...)
+	flag = append(flag, cs(in(ctxMeals),
+		"Hot evenings left 10 kg on average, and mixed ones about 11 kg.",
+		"Hot menus left 20% more than cold ones.",
+	)...)
+	flag = append(flag, cs(in(ctxMentor),
+		"Mentored members stayed at 75%.",
+		"Members without a mentor stayed at 60%.",
+	)...)
+	flag = append(flag, cs(in(ctxBands), "Older members were satisfied 75% of the time.")...)
+	flag = append(flag, cs(in(ctxLagoon),
+		"North's hires rose from 10 in January to 15 in April.",
+		"North's hires grew by 4% over the spring.",
+		"North's hires rose by half over the spring.",
+		"South's hires grew by a third over the spring.",
+	)...)
+	flag = append(flag, cs(in(ctxBooked), "Phone bookers turned up 6 points less often (p = 0.3).")...)
+	clean = append(clean, cs(in(ctxStalls),
+		"Harbour averaged about £8.2k a day.",
+		"Harbour's takings ranged from £3.1k to £12.4k a day.",
+		"Market's best day brought in £9.9k.",
+		"The typical Market day took £6.4k.",
+		"Ratings (1 to 5) were collected at both stalls.",
+		"Takings between £5k and £10k count as a normal day.",
+	)...)
+	clean = append(clean, cs(in(ctxCommute),
+		"Two thirds of staff commute under 30 minutes.",
+		"A tenth of staff travel 45 minutes or more.",
+		"One worker in four takes 30 to 45 minutes.",
+		"Over a third of staff have more than 2 children.",
+	)...)
+	clean = append(clean, cs(in(ctxMeals),
+		"Hot menus left 25% more than cold ones.",
+		"Hot menus left more than cold ones (p = 0.004).",
+		"Mixed menus left about 1 kg more than cold ones (p = 0.09).",
+		"Mixed menus differed little from cold ones (Cohen's d = 0.2).",
+	)...)
+	clean = append(clean, cs(in(ctxMentor), "Mentored members stayed at 70%, against 55% for the others.")...)
+	clean = append(clean, cs(in(ctxBands),
+		"Members aged 18 to 34 were satisfied 60% of the time.",
+		"Older members were satisfied 82% of the time.",
+	)...)
+	clean = append(clean, cs(in(ctxLagoon), "North's hires rose from 10 in January to 14 in April.")...)
+	clean = append(clean, cs(in(ctxBooked), "Phone bookers turned up 6 points less often (p = 0.03).")...)
 	tableTest(t, "number", flag, clean)
+}
+
+// TestNumberTable reads a table's figures with their column's header: a
+// mean under "Mean", a count of cases under "Evenings".
+func TestNumberTable(t *testing.T) {
+	head := "| Menu | Evenings | Mean leftovers (kg) |\n| --- | --- | --- |\n"
+	cases := []struct {
+		row  string
+		flag bool
+	}{
+		{"| Cold | 50 | 8.0 |", false},
+		{"| Hot | 60 | 10.0 |", false},
+		{"| Mixed | 40 | 9.5 |", true},
+		{"| Mixed | 44 | 9.0 |", true},
+	}
+	for _, c := range cases {
+		in := tableInput(head+c.row+"\n", ctxMeals)
+		var got []Finding
+		for _, f := range Run(in) {
+			if f.Rule == "number" {
+				got = append(got, f)
+			}
+		}
+		if c.flag != (len(got) > 0) {
+			t.Errorf("%q: number findings %v, want flagged %v", c.row, got, c.flag)
+		}
+	}
 }
 
 func TestMatchesHedges(t *testing.T) {

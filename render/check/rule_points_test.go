@@ -44,5 +44,18 @@ func TestPoints(t *testing.T) {
 			"Uptake was 105% higher after a text message than after a letter.",
 			"Uptake was 41% after a text message and 20% after a letter.",
 		)...)
+	flag = append(flag, cs(in(ctxMentor),
+		"Mentored members were 15% more likely to stay.",
+	)...)
+	flag = append(flag, cs(in(ctxBooked),
+		"Phone bookers turned up 6% less often than online bookers.",
+	)...)
+	clean = append(clean, cs(in(ctxMentor),
+		"Mentored members were 15 points more likely to stay.",
+		"Mentored members were about 27% more likely to stay.",
+	)...)
+	clean = append(clean, cs(in(ctxBooked),
+		"Phone bookers turned up 6 points less often than online bookers.",
+	)...)
 	tableTest(t, "points", flag, clean)
 }

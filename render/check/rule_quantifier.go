@@ -12,10 +12,15 @@ var quantifierRule = &Rule{
 	Doc: `quantifier flags "most", "the majority", "nearly all", "all", "none", "few", "a minority" against the share they are ` +
 		`about: a level of a frequency, a group's success rate in a compare block (when the sentence names the outcome), a cell of a ` +
 		`crosstab, a time point of a trend, the R² of a fit ("explains nearly all of the variation"), or, for a summary, the quartiles ` +
-		`("most waits were under 30 minutes" needs a median below 30, "half waited longer than 35" a median of at least 35, "a ` +
+		`("most waits were under 30 minutes" needs a median below 30, per group when the sentence names one; "half waited longer than 35" a median of at least 35, "a ` +
 		`quarter waited over 48" an upper quartile of at least 48, "no one waited more than 90" a maximum of at most 90). Thresholds: "most" and "majority" need more than 50%; "the vast majority" 75% or more (a warning from 50%); "nearly ` +
 		`all" and "almost all" 90% (a warning from 75%); "all" 100% and "none" 0% after rounding; "few" and "hardly any" 20% or less ` +
-		`(a warning up to 35%); "a minority" less than 50%. These are the project's reading of plain English. A quantifier the ` +
+		`(a warning up to 35%); "a minority" less than 50%. Shares are derived where the block does not publish them: the levels or ` +
+		`bins of a frequency that meet a stated condition ("most tickets were booked more than a month ahead", "between 10 and 15 ` +
+		`hours"), levels joined by "or" ("a family or a school"), the other outcome of a yes/no block ("most untrained volunteers ` +
+		`left"), a group's share of all cases when the group is named apart from the quantifier ("most days had a hot menu"), and ` +
+		`the share of a block's groups whose mean meets a threshold ("no school averaged less than 10 kg", "all four zones ` +
+		`averaged over 90 minutes"). These are the project's reading of plain English. A quantifier the ` +
 		`sentence does not tie to a share is not read. Severity error when contradicted, warning when only stretched.`,
 	Check: checkQuantifier,
 }
@@ -41,12 +46,17 @@ var quantPhrases = []struct{ phrase, kind string }{
 	{"the great majority", "vast"}, {"nearly all", "nearly all"}, {"almost all", "nearly all"}, {"virtually all", "nearly all"},
 	{"practically all", "nearly all"}, {"nearly every", "nearly all"}, {"almost every", "nearly all"}, {"almost everyone", "nearly all"},
 	{"nearly everyone", "nearly all"}, {"all but a few", "nearly all"}, {"the majority", "most"}, {"a majority", "most"},
-	{"majority of", "most"}, {"a minority", "minority"}, {"the minority", "minority"}, {"hardly any", "few"}, {"hardly anyone", "few"},
+	{"majority of", "most"}, {"the bulk of", "most"}, {"the lion's share of", "most"}, {"the greater part of", "most"},
+	{"the better part of", "most"}, {"a minority", "minority"}, {"the minority", "minority"}, {"hardly any", "few"}, {"hardly anyone", "few"},
 	{"very few", "few"}, {"only a few", "few"}, {"a handful", "few"}, {"almost no", "few"}, {"virtually no", "few"},
 	{"scarcely any", "few"}, {"almost none", "few"}, {"no one", "none"}, {"nobody", "none"}, {"not one", "none"},
 	{"not a single", "none"}, {"none", "none"}, {"everyone", "all"}, {"everybody", "all"}, {"all", "all"}, {"every", "all"},
+	{"both", "all"},
 	{"most", "most"}, {"few", "few"},
 }
+
+// pluralNouns are plurals without an s ("most staff", "most people").
+var pluralNouns = set("staff people children men women police personnel crew cattle data media folk youth public sheep fish")
 
 var notAfterMost = set("likely often common commonly popular frequent frequently recent recently important used visited " +
 	"active affected improved liked read borrowed striking notable noticeable expensive successful effective useful " +
@@ -75,7 +85,8 @@ func checkQuantifier(p *Pass) []Finding {
 			if prev == "the" || prev == "at" || prev == "for" || notAfterMost[next] || next == "" || next == "." {
 				continue
 			}
-			if next != "of" && !strings.HasSuffix(next, "s") && !p.anyLabelAt(j) {
+			if next != "of" && !strings.HasSuffix(next, "s") && !pluralNouns[next] && !p.anyLabelAt(j) &&
+				!(j+1 < len(s.toks) && s.toks[j].kind == tWord && s.toks[j+1].kind == tWord && strings.HasSuffix(s.toks[j+1].low, "s") && !notAfterMost[next]) {
 				continue
 			}
 		case "all", "every", "everyone", "everybody":
@@ -89,11 +100,12 @@ func checkQuantifier(p *Pass) []Finding {
 				continue
 			}
 			if w == "every" && (next == "week" || next == "month" || next == "day" || next == "year" || next == "quarter" ||
-				next == "time" || next == "other") {
-				continue
+				next == "time" || next == "other") && !(next != "time" && next != "other" && s.hasThreshold(j)) {
+				continue // "every month" as an adverb; "every month was above 60%" is a claim
 			}
 		case "few":
-			if prev == "the" || prev == "a" && low(s.toks, i-2) == "quite" || prev == "last" || prev == "next" || prev == "first" {
+			if prev == "the" || prev == "a" && low(s.toks, i-2) == "quite" || prev == "last" || prev == "next" || prev == "first" ||
+				prev == "too" || prev == "so" {
 				continue
 			}
 		}
@@ -118,6 +130,12 @@ func checkQuantifier(p *Pass) []Finding {
 		return nil
 	}
 	said := quote(s.tokText(a, b))
+	if fs, ok := p.groupQuantifier(kind, a, b, said); ok {
+		return fs
+	}
+	if fs, ok := p.timeQuantifier(kind, a, b, said); ok {
+		return fs
+	}
 	f, share, what := p.shareOf(a)
 	if f == nil {
 		return p.quartileQuantifier(kind, a, b, said)
@@ -197,6 +215,11 @@ func (p *Pass) anyLabelAt(i int) bool {
 // value and a description.
 func (p *Pass) shareOf(a int) (*factInfo, float64, string) {
 	s := p.s
+	// "Most tickets were booked more than a month ahead": the levels of a
+	// frequency that meet the condition.
+	if f, _, ok := p.conditionShare(); ok {
+		return f, f.val(), describe(f)
+	}
 	for _, sc := range p.scope {
 		if sc.score < 1 {
 			continue
@@ -218,8 +241,40 @@ func (p *Pass) shareOf(a int) (*factInfo, float64, string) {
 				return f, f.val() * 100, "the share of variation explained (R²)"
 			}
 		}
+		// "Most days had a hot menu", "the guide was used by the majority of
+		// visitors": a group named outside the quantifier's noun phrase is
+		// what most cases belong to; its share of all cases.
+		if (bi.analysis == "compare" || bi.analysis == "summary") && len(bi.dim("group")) >= 2 {
+			if g := p.predicateGroup(bi, a); g != nil && !p.namesOutcome(bi) && !p.hasFigure() {
+				gn, n := bi.fact(g.slug+".n"), bi.fact("n")
+				if gn != nil && n != nil && n.val() > 0 {
+					return gn, 100 * gn.val() / n.val(), "the share of all cases in " + g.name() + " (" + showF(gn) + " of " + showF(n) + ")"
+				}
+			}
+		}
 		switch bi.analysis {
 		case "frequency":
+			// "a family or a school": the levels joined, summed.
+			var sum float64
+			var first *factInfo
+			var names []string
+			seen := map[*label]bool{}
+			for k, m := range ms {
+				if m.l.dim != "level" || seen[m.l] || !joined(s, ms, k) {
+					continue
+				}
+				if f := bi.fact(m.l.slug + ".pct"); f != nil {
+					seen[m.l] = true
+					sum += f.val()
+					names = append(names, m.l.name())
+					if first == nil {
+						first = f
+					}
+				}
+			}
+			if len(names) > 1 {
+				return first, sum, "the share of " + strings.Join(names, " and ") + " together"
+			}
 			if l := pick("level"); l != nil {
 				if f := bi.fact(l.slug + ".pct"); f != nil {
 					return f, f.val(), "the share of " + l.text
@@ -231,13 +286,19 @@ func (p *Pass) shareOf(a int) (*factInfo, float64, string) {
 			}
 			g := pick("group")
 			// The sentence must be about the outcome: it names its column, or
-			// names a group and no word of the opposite outcome.
-			if !p.namesOutcome(bi) && (g == nil || s.has(oppositeOutcome...)) {
+			// names a group and no word of the opposite outcome; with such a
+			// word ("most untrained volunteers left") it is about the rest.
+			if !p.namesOutcome(bi) && g != nil && p.saysOpposite(bi) && !outcomeIsOpposite(bi) {
+				if f := bi.fact(g.slug + ".pct"); f != nil {
+					return f, 100 - f.val(), "the share for " + g.name() + " that is not " + outcomeName(bi) + " (100% − " + showF(f) + ")"
+				}
+			}
+			if !p.namesOutcome(bi) && (g == nil || p.saysOpposite(bi)) {
 				continue
 			}
 			if g != nil {
 				if f := bi.fact(g.slug + ".pct"); f != nil {
-					return f, f.val(), "the share for " + g.text
+					return f, f.val(), "the share for " + g.name()
 				}
 			}
 			if v, f := overallShare(bi); f != nil {
@@ -383,7 +444,7 @@ func (p *Pass) quartileQuantifier(kind string, a, b int, said string) []Finding 
 	default:
 		return nil
 	}
-	f := bi.fact(stat)
+	f := bi.fact(p.groupPrefix(bi) + stat)
 	if f == nil {
 		return nil
 	}
@@ -393,7 +454,7 @@ func (p *Pass) quartileQuantifier(kind string, a, b int, said string) []Finding 
 		return nil
 	}
 	return []Finding{p.atTok(Error, a, b, bi, "says %s %s but %s is %s; try %s", said, q.text(s.ut.text), describe(f), showF(f),
-		quote("half were "+map[bool]string{true: "under ", false: "over "}[under]+showF(bi.fact("median"))))}
+		quote("half were "+map[bool]string{true: "under ", false: "over "}[under]+showF(bi.fact(p.groupPrefix(bi)+"median"))))}
 }
 
 // namesColumn reports whether the sentence names a column by a word of its
@@ -439,17 +500,427 @@ func (p *Pass) shareQuartile(sh *quantity) []Finding {
 			stat = "q3"
 		}
 	}
-	f := bi.fact(stat)
+	f := bi.fact(p.groupPrefix(bi) + stat)
 	if f == nil {
 		return nil
 	}
 	x := q.val
-	// Half over x needs the median at or above x (within rounding); a
-	// quarter over x needs the upper quartile there.
-	bad := (over && f.val() < x-q.half) || (!over && f.val() > x+q.half)
+	// Half over x needs the median at or above x, read literally as the
+	// hedge says; a quarter over x needs the upper quartile there.
+	eps := 1e-9 * math.Max(1, math.Abs(x))
+	bad := (over && f.val() < x-eps) || (!over && f.val() > x+eps)
 	if !bad {
 		return nil
 	}
 	return []Finding{p.at(Error, sh.start, q.end, bi, "says %s %s but %s is %s; try %s", quote(sh.text(s.ut.text)), q.text(s.ut.text),
 		describe(f), showF(f), quote(sh.text(s.ut.text)+" "+map[bool]string{true: "over ", false: "under "}[over]+showF(f)))}
+}
+
+// groupQuantifier reads a quantifier over the groups of a block ("no school
+// averaged less than 10 kg", "all four zones averaged over 90 minutes",
+// "most stores took over £9k a day") against each group's mean (median, when
+// the sentence says so; share, for a yes/no outcome). ok is false when the
+// quantifier is not about the block's groups.
+func (p *Pass) groupQuantifier(kind string, a, b int, said string) ([]Finding, bool) {
+	s := p.s
+	band, known := quantBands[kind]
+	if !known {
+		return nil, false
+	}
+	for _, sc := range p.scope {
+		bi := sc.bi
+		if sc.score < 1 || (bi.analysis != "summary" && bi.analysis != "compare") || bi.meta.By == "" {
+			continue
+		}
+		groups := bi.dim("group")
+		if len(groups) < 2 || !p.namesGroupsNoun(bi, a, b, len(groups)) {
+			continue
+		}
+		stat := bi.measureStat()
+		if stat == "mean" && s.has("median", "medians", "typical") {
+			stat = "median"
+		}
+		// The threshold: the first figure after the quantifier read with a
+		// hedge or as a range.
+		var q *quantity
+		for _, o := range s.qs {
+			if !o.claim() || o.tok < b {
+				continue
+			}
+			if o.hedge == hUnder || o.hedge == hAtMost || o.hedge == hOver || o.hedge == hAtLeast || o.hedge == hRange {
+				q = o
+				break
+			}
+		}
+		if q == nil || (stat == "pct") != (q.unit == uPercent) {
+			continue
+		}
+		// "over £7k" against takings kept in thousands.
+		if f := bi.fact(groups[0].slug + "." + stat); f != nil {
+			if u := unscaled(q); u != nil && math.Abs(math.Log(math.Abs(u.val)/math.Abs(f.val()))) < math.Abs(math.Log(math.Abs(q.val)/math.Abs(f.val()))) {
+				q = u
+			}
+		}
+		meets := func(v float64) bool {
+			switch q.hedge {
+			case hUnder:
+				return v < q.val
+			case hAtMost:
+				return v <= q.val+q.half
+			case hOver:
+				return v > q.val
+			case hAtLeast:
+				return v >= q.val-q.half
+			}
+			return v >= q.lo-q.half && v <= q.hi+q.half // a range
+		}
+		// The share of groups that meet the threshold, and a group that
+		// shows the claim wrong: one that meets it for "none", one that
+		// does not for the others.
+		in := 0
+		var show *factInfo
+		var showL *label
+		for _, g := range groups {
+			f := bi.fact(g.slug + "." + stat)
+			if f == nil {
+				return nil, false
+			}
+			ok := meets(f.val())
+			if ok {
+				in++
+			}
+			if show == nil && ok == (kind == "none") {
+				show, showL = f, g
+			}
+		}
+		share := 100 * float64(in) / float64(len(groups))
+		if band.ok(share) || show == nil {
+			return nil, true
+		}
+		sev := Error
+		if band.warn != nil && band.warn(share) {
+			sev = Warning
+		}
+		return []Finding{p.atTok(sev, a, b, bi, "says %s %s but %d of %d %s meet it (the %s for %s is %s); try %s",
+			said, q.text(s.ut.text), in, len(groups), plural(bi.meta.By), statNames[stat], showL.name(), showF(show),
+			quote(itoa(in)+" of "+itoa(len(groups))+" "+plural(bi.meta.By)))}, true
+	}
+	return nil, false
+}
+
+// namesGroupsNoun reports whether the words right after a quantifier name
+// the block's groups: the grouping column's word ("no school", "all
+// branches"), or their number ("all four zones", "both routes").
+func (p *Pass) namesGroupsNoun(bi *blockInfo, a, b, n int) bool {
+	s := p.s
+	by := map[string]bool{}
+	for _, w := range splitWords(bi.meta.By) {
+		if !stopWords[w] && len(w) > 1 {
+			by[stem(w)] = true
+		}
+	}
+	if s.toks[a].low == "both" && n == 2 {
+		return true
+	}
+	for k := a + 1; k < len(s.toks) && k <= b+3; k++ {
+		t := s.toks[k]
+		if k < b && (t.kind == tWord && (quantWords[t.low] || stopWords[t.low])) {
+			continue
+		}
+		if t.kind == tNum && t.val == float64(n) {
+			continue
+		}
+		if v, ok := numberWords[t.low]; ok && v == float64(n) {
+			continue
+		}
+		if t.low == "of" || t.low == "the" || t.low == "our" || t.low == "its" || t.low == "their" || t.text == "-" {
+			continue
+		}
+		if t.kind != tWord {
+			return false
+		}
+		for w := range by {
+			if sameWord(t.stem, "~"+w) {
+				return true
+			}
+		}
+		return false
+	}
+	return false
+}
+
+// quantWords are the words of the quantifier phrases.
+var quantWords = set("all every everyone everybody no none nobody not one single most majority minority vast great overwhelming " +
+	"nearly almost virtually practically hardly scarcely very only few handful but a the")
+
+func plural(w string) string {
+	w = strings.ReplaceAll(strings.ToLower(w), "_", " ")
+	switch {
+	case strings.HasSuffix(w, "s"):
+		return w
+	case strings.HasSuffix(w, "ch") || strings.HasSuffix(w, "sh") || strings.HasSuffix(w, "x"):
+		return w + "es"
+	}
+	return w + "s"
+}
+
+// predicateGroup returns the group of a block that a sentence names apart
+// from the quantifier at token a, with words between ("most days had a hot
+// menu", "the guide was used by the majority"), or nil when the group is
+// part of the quantifier's noun phrase ("most hot-menu days").
+func (p *Pass) predicateGroup(bi *blockInfo, a int) *label {
+	s := p.s
+	// The end of the quantifier's noun phrase: the quantifier, "of the",
+	// and one noun.
+	end := a + 1
+	for end < len(s.toks) && (quantWords[s.toks[end].low] || s.toks[end].low == "of" || s.toks[end].low == "the") {
+		end++
+	}
+	var g *label
+	for _, m := range s.mentionsOf(bi) {
+		if m.l.dim != "group" {
+			continue
+		}
+		var between []token
+		switch {
+		case m.a > end:
+			between = s.toks[end+1 : m.a]
+		case m.b <= a:
+			between = s.toks[m.b:a]
+		default:
+			return nil // inside the noun phrase
+		}
+		verb := false
+		for _, t := range between {
+			if t.kind == tWord && !stopWords[t.low] || t.low == "was" || t.low == "were" || t.low == "had" || t.low == "has" {
+				verb = true
+			}
+		}
+		if !verb {
+			return nil
+		}
+		if g != nil && g != m.l {
+			return nil
+		}
+		g = m.l
+	}
+	return g
+}
+
+// hasFigure reports whether the sentence states a figure (a threshold or a
+// value, which makes a quantifier about the outcome).
+func (p *Pass) hasFigure() bool {
+	for _, q := range p.s.qs {
+		if q.claim() && q.ref == "" {
+			return true
+		}
+	}
+	return len(p.s.refs) > 0
+}
+
+// outcomeIsOpposite reports whether the outcome a binary block counts is
+// itself a word of the opposite kind ("churned", "late"), so that those
+// words name it rather than its complement.
+func outcomeIsOpposite(bi *blockInfo) bool {
+	for _, c := range bi.meta.Columns {
+		for _, w := range splitWords(c) {
+			for _, o := range oppositeOutcome {
+				if w == o || stem(w) == stem(o) {
+					return true
+				}
+			}
+		}
+	}
+	return false
+}
+
+// saysOpposite reports whether the sentence names the other outcome than
+// the block's success: a word of the kind ("left", "late"), or the
+// outcome's own word negated in one ("unhealthy" for healthy, "unresolved").
+func (p *Pass) saysOpposite(bi *blockInfo) bool {
+	s := p.s
+	if s.has(oppositeOutcome...) {
+		return true
+	}
+	for _, c := range bi.meta.Columns {
+		for _, w := range splitWords(c) {
+			if len(w) < 4 || stopWords[w] {
+				continue
+			}
+			st := stem(w)
+			for _, t := range s.toks {
+				if t.kind != tWord {
+					continue
+				}
+				for _, pre := range []string{"un", "non", "in", "dis"} {
+					if strings.HasPrefix(t.low, pre) && sameWord(strings.TrimPrefix(t.stem, pre), "~"+st) {
+						return true
+					}
+				}
+			}
+		}
+	}
+	return false
+}
+
+// outcomeName is how messages name a block's outcome: its column.
+func outcomeName(bi *blockInfo) string {
+	if len(bi.meta.Columns) == 0 {
+		return "the outcome"
+	}
+	return strings.ReplaceAll(bi.meta.Columns[0], "_", " ")
+}
+
+// groupPrefix is "GROUP." for the one group of a block the sentence names
+// ("half of South van deliveries"), "" when it names none or several.
+func (p *Pass) groupPrefix(bi *blockInfo) string {
+	var g *label
+	for _, m := range p.s.mentionsOf(bi) {
+		if m.l.dim != "group" {
+			continue
+		}
+		if g != nil && g != m.l {
+			return ""
+		}
+		g = m.l
+	}
+	if g == nil || bi.fact(g.slug+".median") == nil {
+		return ""
+	}
+	return g.slug + "."
+}
+
+// timeQuantifier reads a quantifier over a trend's time points ("in most
+// months punctuality was above 60%", "every week drew over 40 riders")
+// against the share of time points whose value meets the threshold, for the
+// group the sentence names. ok is false when the quantifier is not about
+// the time points.
+func (p *Pass) timeQuantifier(kind string, a, b int, said string) ([]Finding, bool) {
+	s := p.s
+	band, known := quantBands[kind]
+	if !known {
+		return nil, false
+	}
+	for _, sc := range p.scope {
+		bi := sc.bi
+		if sc.score < 1 || bi.analysis != "trend" || bi.meta.Time == "" {
+			continue
+		}
+		times := bi.dim("time")
+		if len(times) < 3 || !p.namesTimeNoun(bi, a, b) {
+			continue
+		}
+		var group *label
+		for _, m := range s.mentionsOf(bi) {
+			if m.l.dim == "group" {
+				if group != nil && group != m.l {
+					return nil, false
+				}
+				group = m.l
+			}
+		}
+		if len(bi.dim("group")) > 0 && group == nil {
+			continue
+		}
+		stat := bi.measureStat()
+		// The threshold: after the quantifier, or before it ("queued over 5
+		// minutes in most weeks").
+		var q *quantity
+		for _, o := range s.qs {
+			if o.claim() && (o.hedge == hUnder || o.hedge == hAtMost || o.hedge == hOver || o.hedge == hAtLeast || o.hedge == hRange) {
+				if q == nil || (q.tok < b && o.tok >= b) {
+					q = o
+				}
+			}
+		}
+		if q == nil || (stat == "pct") != (q.unit == uPercent) {
+			continue
+		}
+		in := 0
+		var show *factInfo
+		var showL *label
+		for _, t := range times {
+			name := t.slug + "." + stat
+			if group != nil {
+				name = group.slug + "." + name
+			}
+			f := bi.fact(name)
+			if f == nil {
+				return nil, false
+			}
+			v := f.val()
+			ok := false
+			switch q.hedge {
+			case hUnder:
+				ok = v < q.val
+			case hAtMost:
+				ok = v <= q.val+q.half
+			case hOver:
+				ok = v > q.val
+			case hAtLeast:
+				ok = v >= q.val-q.half
+			default:
+				ok = v >= q.lo-q.half && v <= q.hi+q.half
+			}
+			if ok {
+				in++
+			}
+			if show == nil && ok == (kind == "none") {
+				show, showL = f, t
+			}
+		}
+		share := 100 * float64(in) / float64(len(times))
+		if band.ok(share) || show == nil {
+			return nil, true
+		}
+		sev := Error
+		if band.warn != nil && band.warn(share) {
+			sev = Warning
+		}
+		return []Finding{p.atTok(sev, a, b, bi, "says %s %s but %d of %d time points meet it (%s was %s); try %s",
+			said, q.text(s.ut.text), in, len(times), showL.name(), showF(show), quote(itoa(in)+" of "+itoa(len(times))))}, true
+	}
+	return nil, false
+}
+
+// namesTimeNoun reports whether the words after a quantifier name a trend's
+// time points: its time column's word ("most months" for month, "every
+// week") or a time unit of the same kind.
+func (p *Pass) namesTimeNoun(bi *blockInfo, a, b int) bool {
+	s := p.s
+	want := map[string]bool{}
+	for _, w := range splitWords(bi.meta.Time) {
+		if u := timeUnits[w]; u != "" {
+			want[u] = true
+		}
+		want[stem(w)] = true
+	}
+	for k := a + 1; k < len(s.toks) && k <= b+3; k++ {
+		t := s.toks[k]
+		if t.kind != tWord {
+			return false
+		}
+		if quantWords[t.low] || t.low == "of" || t.low == "the" || t.low == "single" {
+			continue
+		}
+		if _, ok := numberWords[t.low]; ok {
+			continue
+		}
+		return want[t.stem] || want[timeUnits[t.low]]
+	}
+	return false
+}
+
+// hasThreshold reports whether a figure read with an inequality or as a
+// range stands after token j ("above 60%", "between 40 and 50").
+func (s *sentence) hasThreshold(j int) bool {
+	for _, q := range s.qs {
+		if q.claim() && q.tok >= j && !q.change {
+			switch q.hedge {
+			case hUnder, hAtMost, hOver, hAtLeast, hRange:
+				return true
+			}
+		}
+	}
+	return false
 }

@@ -2,6 +2,8 @@ package check
 
 import (
 	"math"
+
+	"candor/blocks"
 )
 
 var ratioRule = &Rule{
@@ -11,6 +13,9 @@ var ratioRule = &Rule{
 		`names (two groups, two levels, two time points), or the last time point over the first for a change over time ("doubled"). ` +
 		`Digits are read with their hedge as the number rule reads them; a multiple said in words is read as "about", within 10%. ` +
 		`When the sentence does not say which way round, either the ratio or its inverse may match. "Odds" compares with the odds ratio. ` +
+		`"N to one" ("three to one", "3 to 1") and "half as much again" (1.5) are multiples too; a multiple of the other outcome ` +
+		`("late half as often" of an on-time share) compares the shares without it. When the sentence names both sides, only their ` +
+		`ratio counts. ` +
 		`The message gives the ratio with its 95% interval and says when the interval includes 1 (no difference). Severity error.`,
 	Check: checkRatio,
 }
@@ -19,9 +24,13 @@ func checkRatio(p *Pass) []Finding {
 	var out []Finding
 	s := p.s
 	odds := s.has("odds")
+	future := s.forecastAt()
 	for _, q := range s.qs {
 		if !q.claim() || q.unit != uTimes || q.ref != "" {
 			continue
+		}
+		if future >= 0 && future < q.tok {
+			continue // "will double by next year": a forecast, the extrapolation rule's
 		}
 		cs := p.changeComparisons(1)
 		if q.change {
@@ -73,6 +82,17 @@ func checkRatio(p *Pass) []Finding {
 		if !near(q, v, true) {
 			continue
 		}
+		if p.complement(c, odds) {
+			// The other outcome's shares: no published ratio or interval.
+			a, b := c.to, c.from
+			if inverse {
+				a, b = b, a
+			}
+			out = append(out, p.atQ(Error, q, c.bi, "says %s but the shares without %s are %s against %s, a ratio of %s; try %s",
+				quote(q.text(s.ut.text)), outcomeName(c.bi), show(100-a.val(), blocks.Percent), show(100-b.val(), blocks.Percent),
+				sig3(v), quote("about "+sig2(v)+" times")))
+			continue
+		}
 		out = append(out, p.atQ(Error, q, c.bi, "says %s but %s", quote(q.text(s.ut.text)), ratioFacts(c, v, inverse, odds)))
 	}
 	return out
@@ -84,6 +104,9 @@ func (p *Pass) ratioReadings(q *quantity, c *comparison, odds bool) []float64 {
 	m := c.mult()
 	if odds && c.odds.ok() {
 		m = c.odds.val()
+	}
+	if p.complement(c, odds) {
+		m = (100 - c.to.val()) / (100 - c.from.val())
 	}
 	if math.IsNaN(m) || m == 0 {
 		return nil
@@ -178,5 +201,12 @@ func labName(l *label) string {
 	if l == nil {
 		return "?"
 	}
-	return l.text
+	return l.name()
+}
+
+// complement reports whether a multiple compares the other outcome than a
+// yes/no block's success ("late a third as often" of an on-time share).
+func (p *Pass) complement(c *comparison, odds bool) bool {
+	return !odds && c.base() == blocks.Percent && c.bi.meta.Outcome == "binary" && !p.namesOutcome(c.bi) && p.saysOpposite(c.bi) &&
+		c.from.ok() && c.to.ok() && c.from.val() < 100 && c.to.val() < 100
 }

@@ -51,5 +51,26 @@ func TestRatio(t *testing.T) {
 			"Satisfaction rose by about an eighth, from 40% to 45%.",
 			"The survey was sent three times in the quarter.",
 		)...)
+	flag = append(flag, cs(in(ctxMeals),
+		"Hot menus left half as much again as cold ones.",
+		"Hot menus left three to one against cold menus.",
+		"Leftovers on hot evenings were 1.6 times cold evenings'.",
+	)...)
+	flag = append(flag, cs(in(ctxBooked),
+		"Online bookers turned up twice as often as phone bookers.",
+	)...)
+	flag = append(flag, cs(in(ctxLagoon))...)
+	clean = append(clean, cs(in(ctxMeals),
+		"Hot menus left about 1.25 times cold menus' leftovers.",
+		"Hot evenings left a quarter more than cold evenings.",
+		"Hot menus left 1.25 times as much as cold ones.",
+	)...)
+	clean = append(clean, cs(in(ctxLagoon),
+		"North's hires rose by 40% over the spring, nearly half as much again.",
+		"South's hires rose by about a tenth.",
+	)...)
+	clean = append(clean, cs(in(ctxLoans),
+		"At this rate loans will double by next spring.",
+	)...)
 	tableTest(t, "ratio", flag, clean)
 }

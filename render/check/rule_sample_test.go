@@ -39,5 +39,27 @@ func TestSample(t *testing.T) {
 			"The pilot will be repeated next year.",
 			"Tutors logged their hours each week.",
 		)...)
+	flag = append(flag, cs(in(ctxLagoon),
+		"South's hires rose from 9 in January to 10 in April.",
+		"South's hires grew over the spring.",
+		"North's hires grew faster than South's.",
+	)...)
+	clean = append(clean, cs(in(ctxLagoon),
+		"North's hires rose from 10 in January to 14 in April.",
+		"South's hires, from 12 counting days a month, rose from 9 to 10.",
+		"North's hires grew over the spring.",
+	)...)
+	flag = append(flag, cs(in(ctxBands),
+		"Members aged 55 and over were satisfied 82% of the time.",
+	)...)
+	flag = append(flag, cs(in(ctxLagoon),
+		"In April the South lagoon hired out 10 kayaks a day.",
+	)...)
+	clean = append(clean, cs(in(ctxBands),
+		"Members aged 35 to 54 were satisfied 70% of the time.",
+	)...)
+	clean = append(clean, cs(in(ctxLagoon),
+		"In April the North lagoon hired out 14 kayaks a day.",
+	)...)
 	tableTest(t, "sample", flag, clean)
 }

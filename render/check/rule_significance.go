@@ -17,7 +17,10 @@ var significanceRule = &Rule{
 		`be. "proves", "proven", "beyond doubt", "conclusively", "definitely" are warnings even with p below alpha: one test proves ` +
 		`nothing. An intensified comparison ("far less likely", "dramatically higher") with p at or above alpha is a warning. "significant" about a block that computes no test (a summary, a frequency, a trend) is a warning, as is "clearly" and the like ` +
 		`when such a sentence compares or describes a change. The p-value is the ` +
-		`block's p (for a regression, the named predictor's). Severity as stated.`,
+		`block's p (for a regression, the named predictor's); in a comparison of three or more groups, a sentence about one group ` +
+		`against the reference reads that pair's test (GROUP.p_welch for means, GROUP.p_z for shares), and one about two other ` +
+		`groups, which have no test of their own, is not judged. "Highly" or "very significant" with p at or above 0.01 is a ` +
+		`warning. Severity as stated.`,
 	Check: checkSignificance,
 }
 
@@ -50,6 +53,9 @@ var (
 var intensifiers = set("far much dramatically substantially markedly considerably vastly sharply hugely massively greatly " +
 	"strikingly notably significantly")
 
+// highlyWords before "significant" claim a p-value well below alpha.
+var highlyWords = set("highly very extremely hugely strongly overwhelmingly")
+
 // findPhrase returns the first phrase of the list the sentence has, with
 // its token range.
 func (s *sentence) findPhrase(list []string) (string, int, int) {
@@ -78,16 +84,54 @@ func (p *Pass) testOf(bi *blockInfo) *factInfo {
 			}
 		}
 	}
+	if f, ok := p.pairwiseP(bi); ok {
+		return f
+	}
 	if f := bi.fact("p"); f != nil {
 		return f
 	}
-	// Three or more groups with a p per group.
-	for _, m := range p.s.mentionsOf(bi) {
-		if f := bi.fact(m.l.slug + ".p"); f != nil {
-			return f
-		}
-	}
 	return nil
+}
+
+// pairwiseP returns the p-value of the pair of groups a sentence compares
+// in a comparison of three or more groups ("mixed menus wasted more than
+// cold menus"): the named group's test against the reference (GROUP.p_welch
+// for means, GROUP.p_z for shares). ok is false when the sentence does not
+// compare one pair; a nil fact with ok true means the pair has no test of
+// its own (two groups that are neither the reference), so nothing is
+// judged.
+func (p *Pass) pairwiseP(bi *blockInfo) (*factInfo, bool) {
+	if bi.analysis != "compare" || len(bi.dim("group")) < 3 {
+		return nil, false
+	}
+	ref := bi.meta.Reference
+	var others []*label
+	refNamed := false
+	seen := map[*label]bool{}
+	for _, m := range p.s.mentionsOf(bi) {
+		if m.l.dim != "group" || seen[m.l] {
+			continue
+		}
+		seen[m.l] = true
+		if blocks.Slug(ref) == m.l.slug {
+			refNamed = true
+			continue
+		}
+		others = append(others, m.l)
+	}
+	compares := p.s.has("than", "against", "versus", "vs", "compared", "better", "worse") || len(p.directionWords()) > 0
+	switch {
+	case len(others) == 1 && (refNamed || compares):
+		for _, st := range []string{"p_welch", "p_z", "p"} {
+			if f := bi.fact(others[0].slug + "." + st); f != nil {
+				return f, true
+			}
+		}
+		return nil, true
+	case len(others) >= 2:
+		return nil, true
+	}
+	return nil, false
 }
 
 func checkSignificance(p *Pass) []Finding {
@@ -168,6 +212,11 @@ func checkSignificance(p *Pass) []Finding {
 		if pv >= alpha {
 			return []Finding{p.atTok(Error, a, b, bi, "says %s but %s, not below alpha %s%s; try %s",
 				said, pShow, trimFloat(alpha), effect, quote("a difference the data cannot tell from chance ("+pShow+")"))}
+		}
+		// "highly significant" claims far more than alpha: p below 0.01.
+		if a > 0 && strings.HasPrefix(ph, "signific") && highlyWords[s.toks[a-1].low] && pv >= 0.01 {
+			return []Finding{p.atTok(Warning, a-1, b, bi, "says %s but %s, below alpha %s yet not below 0.01%s; try %s",
+				quote(s.tokText(a-1, b)), pShow, trimFloat(alpha), effect, quote("significant ("+pShow+")"))}
 		}
 	case "certainty":
 		if pv >= alpha {

@@ -49,5 +49,22 @@ func TestSignificance(t *testing.T) {
 		cs(in(ctxLoans),
 			"Loans fell by 1.2 per member over the year.",
 		)...)
+	flag = append(flag, cs(in(ctxMeals),
+		"Mixed menus left significantly more than cold menus.",
+		"The mixed-menu gap over cold menus is clearly real.",
+	)...)
+	flag = append(flag, cs(in(ctxBooked),
+		"Counter bookers turned up significantly more often than online bookers.",
+		"The channels differ very significantly (p = 0.01).",
+	)...)
+	clean = append(clean, cs(in(ctxMeals),
+		"Hot menus left significantly more than cold menus (p = 0.004).",
+		"The menus differ significantly overall (p = 0.012).",
+		"Mixed menus left more than cold menus, but the gap could be chance (p = 0.09).",
+	)...)
+	clean = append(clean, cs(in(ctxBooked),
+		"Phone bookers turned up significantly less often than online bookers.",
+		"Turn-up differed significantly between the channels (p = 0.01).",
+	)...)
 	tableTest(t, "significance", flag, clean)
 }

@@ -12,7 +12,8 @@ var strengthRule = &Rule{
 	Doc: `strength flags words for the strength of a correlation ("strong", "close", "moderate", "weak", "slight", "no ` +
 		`correlation") against |r|, using Cohen's (1988) benchmarks: about 0.1 small, 0.3 medium, 0.5 large. "strong" needs |r| of ` +
 		`at least 0.45; "moderate" 0.25 to 0.55; "weak" below 0.35; "no correlation" below 0.15. A word one band away is a warning, ` +
-		`two bands away an error. For a simple regression |r| is the square root of R²; for a crosstab the measure is Cramér's V ` +
+		`two bands away an error. The word may qualify the relation ("strongly correlated", "a strong predictor", "strongly determines") ` +
+		`or be said of it ("the correlation between A and B is strong"). For a simple regression |r| is the square root of R²; for a crosstab the measure is Cramér's V ` +
 		`on the same benchmarks. Words for the size of a difference ("a large effect", "a small difference") are read against ` +
 		`Cohen's d where the block computes it (0.2 small, 0.5 medium, 0.8 large).`,
 	Check: checkStrength,
@@ -31,7 +32,13 @@ var strengthWords = map[string]int{
 }
 
 var relationWords = set("correlation correlations correlated correlate correlates association associated relationship " +
-	"relationships related relation link linked tracks tracked relate")
+	"relationships related relation link linked tracks tracked relate predictor predictors predicts predict predicted " +
+	"determines determine determined depends dependent shapes influences influence influenced affects affect affected " +
+	"drives drive driven")
+
+// copulas before a strength word make it the predicate of the sentence's
+// subject ("the correlation between X and Y is strong").
+var copulas = set("is was are were remains remained seems seemed looks looked appears appeared proved")
 
 var effectWords = set("effect effects difference differences gap gaps")
 
@@ -133,9 +140,21 @@ func checkStrength(p *Pass) []Finding {
 		if !relation && !effect && (t.low == "unrelated" || t.low == "uncorrelated") {
 			relation = true
 		}
-		// "correlated strongly", "correlation was weak".
+		// "correlated strongly", "correlation was weak"; "the correlation
+		// between the number of medicines and lateness is strong": the
+		// subject of a predicate, however long.
 		if !relation && !effect {
-			for k := i - 1; k >= 0 && k >= i-7; k-- {
+			from := i - 7
+			if k := i - 1; k >= 0 && (copulas[s.toks[k].low] || (k > 0 && copulas[s.toks[k-1].low] && (s.toks[k].low == "very" || s.toks[k].low == "quite" || s.toks[k].low == "fairly" || s.toks[k].low == "only"))) {
+				from = 0
+				for m := i - 1; m >= 0; m-- {
+					if strings.Contains(";:", s.toks[m].text) {
+						from = m + 1
+						break
+					}
+				}
+			}
+			for k := i - 1; k >= 0 && k >= from; k-- {
 				if relationWords[s.toks[k].low] {
 					relation = true
 				}

@@ -50,5 +50,25 @@ func TestStrength(t *testing.T) {
 			"Tutoring had a medium effect on scores.",
 			"The difference in scores was moderate.",
 		)...)
+	flag = append(flag, cs(in(ctxDistance),
+		"The link between how far pupils live from school and how often they attend is weak.",
+	)...)
+	flag = append(flag, cs(in(ctxVisits),
+		"Visits are a strong predictor of spend.",
+		"Visits strongly determine spend.",
+	)...)
+	flag = append(flag, cs(in(ctxBands),
+		"Age strongly shapes satisfaction (Cramér's V 0.17).",
+	)...)
+	clean = append(clean, cs(in(ctxDistance),
+		"The link between how far pupils live from school and how often they attend is strong.",
+		"Distance is a strong predictor of attendance.",
+	)...)
+	clean = append(clean, cs(in(ctxVisits),
+		"Visits are only a weak predictor of spend.",
+	)...)
+	clean = append(clean, cs(in(ctxBands),
+		"Age and satisfaction are weakly associated (Cramér's V 0.17).",
+	)...)
 	tableTest(t, "strength", flag, clean)
 }

@@ -7,7 +7,7 @@ import (
 var unshownFitRule = &Rule{
 	ID: "unshown-fit",
 	Doc: `unshown-fit flags a correlation or regression block whose data are not shown as a scatter plot (chart: none, or another ` +
-		`kind), unless another block of the report draws a scatter of the same two columns. An r or a slope alone hides curves, ` +
+		`kind), unless another block of the same section draws a scatter of the same columns (a regression's outcome and predictors count as its columns). An r or a slope alone hides curves, ` +
 		`clusters and single points that make the fit (Anscombe's quartet is the classic warning). Severity warning.`,
 	On:    Figures,
 	Check: checkUnshownFit,
@@ -22,10 +22,10 @@ func checkUnshownFit(p *Pass) []Finding {
 		return nil
 	}
 	for _, o := range p.blocks {
-		if o == bi || o.figure == nil || o.figure.Kind != figures.Scatter {
+		if o == bi || o.figure == nil || o.figure.Kind != figures.Scatter || o.b.Section != bi.b.Section {
 			continue
 		}
-		if sameColumns(o.meta.Columns, bi.meta.Columns) {
+		if sameColumns(fitColumns(o), fitColumns(bi)) {
 			return nil
 		}
 	}
@@ -53,4 +53,18 @@ func sameColumns(a, b []string) bool {
 		}
 	}
 	return true
+}
+
+// fitColumns are the variables of a fit: the columns and the predictors (a
+// regression's Columns hold only its outcome).
+func fitColumns(bi *blockInfo) []string {
+	seen := map[string]bool{}
+	var out []string
+	for _, c := range append(append([]string{}, bi.meta.Columns...), bi.meta.Predictors...) {
+		if !seen[c] {
+			seen[c] = true
+			out = append(out, c)
+		}
+	}
+	return out
 }

@@ -21,6 +21,21 @@ func TestUnshownFit(t *testing.T) {
 		figCase{"scatter of other columns", in(figBlock("c", "correlation", pair, nil, nil),
 			figBlock("d", "correlation", blocks.Meta{Columns: []string{"age", "spend"}}, &figures.Spec{Kind: figures.Scatter}, nil))},
 	)
+	// A regression's columns are its outcome and its predictors; a scatter
+	// of the same columns in another section does not show this block's.
+	rain := blocks.Meta{Columns: []string{"riders"}, Predictors: []string{"rain_mm"}}
+	warm := blocks.Meta{Columns: []string{"riders"}, Predictors: []string{"temp_c"}}
+	elsewhere := figBlock("d", "correlation", blocks.Meta{Columns: []string{"rain_mm", "riders"}}, &figures.Spec{Kind: figures.Scatter}, nil)
+	elsewhere.Section = 2
+	flag = append(flag,
+		figCase{"regression with chart: none beside another predictor's scatter", in(figBlock("r", "regression", rain, nil, nil),
+			figBlock("t", "regression", warm, &figures.Spec{Kind: figures.Scatter}, nil))},
+		figCase{"the same columns drawn in another section", in(figBlock("r", "regression", rain, nil, nil), elsewhere)},
+	)
+	clean = append(clean,
+		figCase{"regression shown by a correlation of its columns", in(figBlock("r", "regression", rain, nil, nil),
+			figBlock("d", "correlation", blocks.Meta{Columns: []string{"rain_mm", "riders"}}, &figures.Spec{Kind: figures.Scatter}, nil))},
+	)
 	clean = append(clean,
 		figCase{"correlation as scatter", in(figBlock("c", "correlation", pair, &figures.Spec{Kind: figures.Scatter}, nil))},
 		figCase{"regression as scatter", in(figBlock("r", "regression", pair, &figures.Spec{Kind: figures.Scatter}, nil))},

@@ -4,6 +4,7 @@ import (
 	"math"
 	"regexp"
 	"sort"
+	"strconv"
 	"strings"
 	"unicode"
 
@@ -52,6 +53,7 @@ type label struct {
 	words []string   // stems of its significant words
 	alts  [][]string // other ways to write it ("2026-01" is also "January")
 	uniq  []string   // the words no other label of its dimension has
+	disp  string     // how messages name it, when not by its text ("pruned" for yes)
 	num   bool       // a number ("2024", "3")
 	short bool       // one letter ("A")
 }
@@ -117,6 +119,33 @@ func newBlockInfo(b *Block, li *lineIndex) *blockInfo {
 		}
 	}
 	bi.finishLabels()
+	// Age bands: "older" is the last band, "younger" the first.
+	for _, d := range []string{"group", "level", "row", "col"} {
+		col := m.By
+		switch {
+		case bi.analysis == "crosstab" && d == "row" && len(m.Columns) > 0:
+			col = m.Columns[0]
+		case bi.analysis == "crosstab" && d == "col" && len(m.Columns) > 1:
+			col = m.Columns[1]
+		case bi.analysis == "frequency" && len(m.Columns) > 0:
+			col = m.Columns[0]
+		}
+		bi.ageAlts(d, col)
+	}
+	// Groups "yes" and "no" of a column are named by the column's words:
+	// "trained volunteers" and "untrained ones", "promotion days" and
+	// "days without a promotion".
+	switch bi.analysis {
+	case "crosstab":
+		if len(m.Columns) > 0 {
+			bi.yesNoAlts("row", m.Columns[0])
+		}
+		if len(m.Columns) > 1 {
+			bi.yesNoAlts("col", m.Columns[1])
+		}
+	default:
+		bi.yesNoAlts("group", m.By)
+	}
 	for _, w := range append([]string{res.ID, m.By, m.Time}, append(m.Columns, m.Predictors...)...) {
 		for _, x := range splitWords(w) {
 			if !stopWords[x] && len(x) > 1 {
@@ -181,6 +210,10 @@ func (bi *blockInfo) addLabel(dim, text string) {
 			l.alts = append(l.alts, []string{name, m[1]}, []string{name})
 		}
 	}
+	// "18-39" is also "18 to 39" and "18 and 39".
+	if len(l.words) == 2 && isNumeric(l.words[0]) && isNumeric(l.words[1]) {
+		l.alts = append(l.alts, []string{l.words[0], "to", l.words[1]}, []string{l.words[0], "and", l.words[1]})
+	}
 	// "No card" is also "without a card"; "Non-member" "without membership"
 	// is too far.
 	if len(l.words) > 1 && (l.words[0] == "no" || l.words[0] == "not" || l.words[0] == "non") {
@@ -221,11 +254,118 @@ func (bi *blockInfo) finishLabels() {
 					}
 				}
 			}
-			if !shared && len(w) > 1 && !stopWords[w] {
+			if !shared && len(w) > 1 && !stopWords[w] && !isNumeric(w) {
 				l.uniq = append(l.uniq, w)
 			}
 		}
 	}
+}
+
+// ageAlts lets "older" and "oldest" name the last of a column's age bands
+// ("16-40", "65+") and "younger" and "youngest" the first.
+func (bi *blockInfo) ageAlts(dim, col string) {
+	age := false
+	for _, w := range splitWords(col) {
+		if w == "age" || w == "ages" || w == "aged" {
+			age = true
+		}
+	}
+	ls := bi.dim(dim)
+	if !age || len(ls) < 2 {
+		return
+	}
+	lower := func(l *label) float64 {
+		v, _ := strconv.ParseFloat(l.words[0], 64)
+		return v
+	}
+	for _, l := range ls {
+		if len(l.words) == 0 || !isNumeric(l.words[0]) {
+			return
+		}
+	}
+	// Bands in the order of their lower bounds, whatever order the data gave.
+	first, last := ls[0], ls[0]
+	for _, l := range ls {
+		if lower(l) < lower(first) {
+			first = l
+		}
+		if lower(l) > lower(last) {
+			last = l
+		}
+	}
+	for _, w := range []string{"younger", "youngest"} {
+		first.alts = append(first.alts, []string{stem(w)})
+	}
+	for _, w := range []string{"older", "oldest", "elderly"} {
+		last.alts = append(last.alts, []string{stem(w)})
+	}
+}
+
+// yesNoAlts lets the words of a yes/no column name its two labels: the
+// column's words (a loose stem, "promotion" for "promo") name "yes"; "non",
+// "no", "not", "without" or "un" before them name "no".
+func (bi *blockInfo) yesNoAlts(dim, col string) {
+	if col == "" {
+		return
+	}
+	var yes, no, other *label
+	count := 0
+	for _, l := range bi.labels {
+		if l.dim != dim {
+			continue
+		}
+		count++
+		switch strings.ToLower(strings.TrimSpace(l.text)) {
+		case "yes", "true", "y", "1":
+			yes = l
+		case "no", "false", "n", "0", "none", "without", "never":
+			no = l
+		default:
+			other = l
+		}
+	}
+	// "none" against "text": the one other level is the column's "yes".
+	if yes == nil && other != nil && count == 2 {
+		yes = other
+	}
+	if yes == nil || no == nil || count != 2 {
+		return
+	}
+	var ws []string
+	for _, w := range splitWords(col) {
+		if !stopWords[w] && len(w) > 1 {
+			ws = append(ws, "~"+stem(w))
+		}
+	}
+	if len(ws) == 0 {
+		return
+	}
+	if strings.EqualFold(yes.text, "yes") || strings.EqualFold(yes.text, "true") {
+		name := strings.ReplaceAll(strings.ToLower(col), "_", " ")
+		yes.disp, no.disp = name, "not "+name
+	}
+	yes.alts = append(yes.alts, ws)
+	no.alts = append(no.alts, append([]string{"non"}, ws...), append([]string{"no"}, ws...), append([]string{"not"}, ws...),
+		append([]string{"without"}, ws...), append([]string{"~un" + strings.TrimPrefix(ws[0], "~")}, ws[1:]...))
+	if len(ws) > 1 {
+		// "guide users" for audio_guide: the last word alone.
+		last := ws[len(ws)-1]
+		if len(last) > 4 {
+			yes.alts = append(yes.alts, []string{last})
+			no.alts = append(no.alts, []string{"non", last}, []string{"no", last}, []string{"without", last})
+		}
+	}
+}
+
+// name is how messages name the label.
+func (l *label) name() string {
+	if l == nil {
+		return "?"
+	}
+	if l.disp != "" {
+		return l.disp
+	}
+	return l.text
 }
 
 // fact returns the fact NAME of the block (without "ID."), or nil.
@@ -277,6 +417,9 @@ func (bi *blockInfo) dim(d string) []*label {
 // measureStat is the statistic the block reports per group or time point:
 // "pct" for shares, "mean" for numbers.
 func (bi *blockInfo) measureStat() string {
+	if bi.analysis == "crosstab" {
+		return "row_pct" // "68% of older trees were healthy": within the row
+	}
 	if bi.meta.Outcome == "binary" {
 		return "pct"
 	}
@@ -379,7 +522,7 @@ func matchLabel(s *sentence, bi *blockInfo, l *label, i int, words []string) int
 	}
 	k := i
 	for n, w := range words {
-		for n > 0 && k < len(toks) && (toks[k].text == "-" || toks[k].text == "'" || toks[k].text == "’" || toks[k].text == "/" ||
+		for n > 0 && k < len(toks) && (toks[k].text == "-" || toks[k].text == "–" || toks[k].text == "—" || toks[k].text == "'" || toks[k].text == "’" || toks[k].text == "/" ||
 			toks[k].low == "a" || toks[k].low == "an" || toks[k].low == "the") {
 			k++
 		}
@@ -391,7 +534,7 @@ func matchLabel(s *sentence, bi *blockInfo, l *label, i int, words []string) int
 		if tk.kind == tNum {
 			got = strings.ReplaceAll(tk.low, ",", "")
 		}
-		if tk.kind == tPunct || got != w {
+		if tk.kind == tPunct || !sameWord(got, w) {
 			return 0
 		}
 		k++
@@ -502,6 +645,21 @@ func (p *Pass) scopeOf(s *sentence) []*scoped {
 			}
 		}
 	}
+	// A sentence of a section without blocks (a summary of key points, an
+	// introduction) that names a block's columns or groups is read against
+	// that block.
+	// Its figures are left alone (an introduction describes the data), its
+	// words are read: "the audio guide clearly improves the visit".
+	if len(out) == 0 && s.unit.Section > 0 {
+		for _, bi := range p.blocks {
+			if bi.res != nil && (wordLinks(s, bi) >= 2 || namesLabel(s, bi)) {
+				add(bi, "named")
+			}
+		}
+		for _, sc := range out {
+			sc.score = 1
+		}
+	}
 	unitOff := s.srcStart()
 	sort.SliceStable(out, func(i, j int) bool {
 		if out[i].score != out[j].score {
@@ -566,6 +724,19 @@ func (s *sentence) ties(bi *blockInfo, q *quantity) map[string]*label {
 				// preposition belongs to the number before it.
 				if m.a == q.tokEnd+1 && prepositions[s.toks[q.tokEnd].low] {
 					dist = 0
+				}
+				// "6.1 minutes in June", "317 riders a day in March": its unit
+				// words between.
+				if m.a > q.tokEnd+1 && m.a <= q.tokEnd+5 && prepositions[s.toks[m.a-1].low] {
+					words := true
+					for k := q.tokEnd; k < m.a-1; k++ {
+						if s.toks[k].kind != tWord || s.clause[k] != c || prepositions[s.toks[k].low] {
+							words = false
+						}
+					}
+					if words {
+						dist = 0
+					}
 				}
 			}
 			if m.partial {
@@ -642,6 +813,23 @@ func matchID(toks []token, i int, id string) int {
 
 var asWords = set("as so too how very")
 
+// sameWord reports whether a token's stem spells a label's word. A word
+// marked "~" (from a column name) is loose: the same first five letters
+// will do ("promotion" for "promo", "reminded" for "reminder").
+func sameWord(got, w string) bool {
+	if !strings.HasPrefix(w, "~") {
+		return got == w
+	}
+	w = w[1:]
+	if len(w) >= 4 && strings.HasPrefix(got, w) {
+		return true // "temp" for "temperature"
+	}
+	if len(w) < 5 || len(got) < 5 {
+		return got == w
+	}
+	return got[:5] == w[:5]
+}
+
 // gaveWords before a number make it an answer of a rating or score scale.
 var gaveWords = set("gave give gives giving rated rate rates rating scored score scores grade graded marked chose picked selected answered")
 
@@ -664,6 +852,36 @@ func (s *sentence) contrastBetween(ms []mention, d string, q *quantity) bool {
 			if contrastWords[s.toks[k].low] {
 				return true
 			}
+		}
+	}
+	return false
+}
+
+// markNames marks the numbers of the sentence that spell a label of a block
+// in scope ("patients aged 18 to 39" for the age band 18-39, "ratings of 5")
+// as names: they say which group, not how much.
+func (p *Pass) markNames() {
+	s := p.s
+	for _, sc := range p.scope {
+		for _, m := range s.mentionsOf(sc.bi) {
+			if m.partial {
+				continue
+			}
+			for _, q := range s.qs {
+				if q.skip == "" && q.ref == "" && q.tok >= m.a && q.tok < m.b && m.b-m.a > 1 {
+					q.skip = "label"
+				}
+			}
+		}
+	}
+}
+
+// namesLabel reports whether the sentence names a group or level of the
+// block in full (not by a shared word only).
+func namesLabel(s *sentence, bi *blockInfo) bool {
+	for _, m := range s.mentionsOf(bi) {
+		if !m.partial && m.l.dim != "time" && !m.l.num {
+			return true
 		}
 	}
 	return false

@@ -13,6 +13,7 @@ type sentence struct {
 	refs       []string // the facts of its inline values
 	clause     []int    // clause number of each token
 	first      bool     // the unit's first sentence
+	heads      []string // a table row's header cells, by cell
 	mentions   map[*blockInfo][]mention
 }
 
@@ -130,6 +131,9 @@ func (s *sentence) negated(i int) bool {
 		return false
 	}
 	t := s.toks[k]
+	if (t.low == "failed" || t.low == "fail" || t.low == "fails") && low(s.toks, k+1) != "to" {
+		return false // "failed more often": the outcome, not "failed to rise"
+	}
 	return negations[t.low] || strings.HasSuffix(t.low, "n't") || strings.HasSuffix(t.low, "n’t")
 }
 
@@ -149,4 +153,48 @@ func (s *sentence) quantityAt(i int) *quantity {
 		}
 	}
 	return nil
+}
+
+// cellOf returns the index of the table cell token i stands in (the row's
+// cells are joined by "|").
+func (s *sentence) cellOf(i int) int {
+	n := 0
+	for k := 0; k < i && k < len(s.toks); k++ {
+		if s.toks[k].text == "|" {
+			n++
+		}
+	}
+	return n
+}
+
+// headStat returns the statistic the header of the quantity's table column
+// names ("Mean waste (kg)" a mean, "Median" a median; "Days", "Sessions", "n"
+// over whole numbers a count of cases), or "".
+func (s *sentence) headStat(q *quantity) string {
+	if len(s.heads) == 0 {
+		return ""
+	}
+	c := s.cellOf(q.tok)
+	if c >= len(s.heads) || c == 0 {
+		return ""
+	}
+	ws := splitWords(s.heads[c])
+	for _, w := range ws {
+		if st, ok := statWords[w]; ok && st != "predict" && st != "estimate" {
+			return st
+		}
+	}
+	for _, w := range ws {
+		switch w {
+		case "n", "count", "number", "cases", "total":
+			return "n"
+		}
+	}
+	// A plain plural noun over a whole number ("Days", "Sessions"): how many
+	// cases the row's group holds.
+	if len(ws) == 1 && strings.HasSuffix(ws[0], "s") && !strings.HasSuffix(ws[0], "ss") && q.unit == uNone && q.cur == "" &&
+		q.val == float64(int64(q.val)) && !measureNouns[ws[0]] {
+		return "n"
+	}
+	return ""
 }
