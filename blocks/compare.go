@@ -15,8 +15,8 @@ const level95 = 0.95
 // compareNumericCharts and compareBinaryCharts are the kinds a comparison
 // of means and of proportions can be drawn as.
 var (
-	compareNumericCharts = []figures.Kind{figures.Dot, figures.Bar, figures.Box}
-	compareBinaryCharts  = []figures.Kind{figures.Grouped, figures.Bar, figures.Dot, figures.Stacked, figures.Pie}
+	compareNumericCharts = []figures.Kind{figures.Dot, figures.Bar, figures.Box, figures.Line}
+	compareBinaryCharts  = []figures.Kind{figures.Grouped, figures.Bar, figures.Dot, figures.Stacked, figures.Pie, figures.Line}
 )
 
 // compareNumericAgg is what a comparison of means publishes

@@ -10,7 +10,7 @@ import (
 func init() { analyses["crosstab"] = runCrosstab }
 
 // crosstabCharts are the kinds a crosstab can be drawn as.
-var crosstabCharts = []figures.Kind{figures.Stacked, figures.Grouped}
+var crosstabCharts = []figures.Kind{figures.Stacked, figures.Grouped, figures.Line}
 
 // crosstabAgg is what a crosstab publishes (publishCrosstab), counted from
 // the rows in memory (runCrosstab) or in the database (pdCrosstab): the
