@@ -191,6 +191,16 @@ func publishCompareNumeric(a *run, x compareNumericAgg) error {
 	}
 	tab.Notes = append(tab.Notes, fmt.Sprintf("Differences are each group's mean minus the mean of %s, with Welch's t interval and test (unequal variances); Cohen's d uses the pooled SD.", gs[ref].Label))
 	a.res.Tables = append(a.res.Tables, fitTable(tab))
+	// Pairs of other groups, for claims that compare them with each other:
+	// A.B.diff is B's mean minus A's (A first in the groups' order).
+	otherPairs(gs, ref, func(i, j int) {
+		w := stats.WelchMoments(moms[i], moms[j], level95)
+		p := gs[i].Slug + "." + gs[j].Slug + "."
+		a.set(p+"diff", w.Diff, Number, reasonOf(w.Reason, "Diff"))
+		a.set(p+"diff_low", w.Low, Number, reasonOf(w.Reason, "Low"))
+		a.set(p+"diff_high", w.High, Number, reasonOf(w.Reason, "High"))
+		a.set(p+"p_welch", w.P, PValue, reasonOf(w.Reason, "P"))
+	})
 	if multi {
 		an := stats.OneWayANOVAMoments(moms)
 		a.method("anova")
@@ -326,6 +336,16 @@ func publishCompareBinary(a *run, x compareBinaryAgg) error {
 			a.note("Some expected counts are below 5, so the chi-square p-value is only approximate.")
 		}
 	}
+	otherPairs(gs, ref, func(i, j int) {
+		pr := stats.TwoProportions(xs[i], ns[i], xs[j], ns[j], level95)
+		r := pr.Reason
+		p := gs[i].Slug + "." + gs[j].Slug + "."
+		a.set(p+"diff", pct(pr.Diff), Points, reasonOf(r, "Diff"))
+		a.set(p+"diff_low", pct(pr.DiffLow), Points, reasonOf(r, "DiffLow"))
+		a.set(p+"diff_high", pct(pr.DiffHigh), Points, reasonOf(r, "DiffHigh"))
+		a.set(p+"ratio", pr.RiskRatio, Ratio, reasonOf(r, "RiskRatio"))
+		a.set(p+"p_z", pr.P, PValue, reasonOf(r, "P"))
+	})
 	a.res.Tables = append(a.res.Tables, fitTable(tab))
 	fs := a.figure(figures.Grouped)
 	fs.Percent = true
@@ -357,6 +377,18 @@ func publishCompareBinary(a *run, x compareBinaryAgg) error {
 	}
 	fs.Series = []figures.Series{ser}
 	return nil
+}
+
+// otherPairs calls f for every pair i < j of groups, neither of them the
+// reference (whose comparisons are published per group).
+func otherPairs(gs []Group, ref int, f func(i, j int)) {
+	for i := range gs {
+		for j := i + 1; j < len(gs); j++ {
+			if i != ref && j != ref {
+				f(i, j)
+			}
+		}
+	}
 }
 
 // numCell shows fact ID.name.

@@ -331,3 +331,36 @@ func TestReferenceRegression(t *testing.T) {
 		})
 	}
 }
+
+// TestReferencePairs: with three groups, the two that are not the
+// reference are compared with each other too (A.B.diff is B minus A); the
+// values are scipy's Welch test on those two samples.
+func TestReferencePairs(t *testing.T) {
+	for _, c := range loadRef(t).Welch {
+		t.Run(c.Name, func(t *testing.T) {
+			third := []float64{1, 2, 3, 4}
+			rep := buildBlock(t, groupsCSV([][]float64{third, c.A, c.B}, []string{"r", "a", "b"}), "compare: x\nby: g\nreference: r")
+			near(t, "a.b.diff", rep.fact(t, "a.b.diff"), c.Diff, 1e-9)
+			near(t, "a.b.p_welch", rep.fact(t, "a.b.p_welch"), c.P, 1e-9)
+			if c.Level == 0.95 {
+				near(t, "a.b.diff_low", rep.fact(t, "a.b.diff_low"), c.Low, 1e-8)
+			}
+		})
+	}
+	for i, c := range loadRef(t).Proportions {
+		t.Run(fmt.Sprint("proportions ", i), func(t *testing.T) {
+			var b strings.Builder
+			b.WriteString("g,ok\nr,yes\nr,no\n")
+			for k := 0; k < c.N1; k++ {
+				fmt.Fprintf(&b, "a,%s\n", map[bool]string{true: "yes", false: "no"}[k < c.X1])
+			}
+			for k := 0; k < c.N2; k++ {
+				fmt.Fprintf(&b, "b,%s\n", map[bool]string{true: "yes", false: "no"}[k < c.X2])
+			}
+			rep := buildBlock(t, b.String(), "compare: ok\nby: g\nreference: r")
+			near(t, "a.b.diff", rep.fact(t, "a.b.diff"), 100*c.Diff, 1e-9)
+			near(t, "a.b.ratio", rep.fact(t, "a.b.ratio"), c.RiskRatio, 1e-9)
+			near(t, "a.b.p_z", rep.fact(t, "a.b.p_z"), c.P, 1e-9)
+		})
+	}
+}
