@@ -264,6 +264,7 @@ func publishCompareNumeric(a *run, x compareNumericAgg) error {
 func publishCompareBinary(a *run, x compareBinaryAgg) error {
 	s := a.spec
 	gs, ref, xs, ns := x.groups, x.ref, x.xs, x.ns
+	a.res.Meta.Success = x.success
 	a.res.Meta.Outcome = "binary"
 	a.method("wilson", "newcombe", "katz", "woolf", "z-test")
 	total := 0

@@ -22,6 +22,8 @@ type Result struct {
 type Meta struct {
 	// Outcome is "numeric", "binary" or "categorical" for the analysed column.
 	Outcome string
+	// Success is the value counted as a success of a binary outcome.
+	Success string
 	// Columns are the columns analysed, in the order the block names them.
 	Columns []string
 	// By is the grouping column, Groups its levels in display order (slugged

@@ -84,6 +84,7 @@ func runTrend(a *run) error {
 	if o.binary {
 		measure, kind, unit = "pct", Percent, " points"
 		a.res.Meta.Outcome = "binary"
+		a.res.Meta.Success = o.success
 		a.method("wilson")
 	} else {
 		a.res.Meta.Outcome = "numeric"
